@@ -43,8 +43,11 @@ export async function startApp(env: Record<string, string> = {}): Promise<Runnin
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   })
-  child.stdout?.on('data', (d) => { output += d })
-  child.stderr?.on('data', (d) => { output += d })
+  const collect = (d: Buffer) => {
+    output += d
+  }
+  child.stdout?.on('data', collect)
+  child.stderr?.on('data', collect)
   const url = `http://127.0.0.1:${port}`
   const deadline = Date.now() + 30_000
   for (;;) {

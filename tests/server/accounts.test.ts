@@ -5,8 +5,12 @@ import { startApp, type RunningApp } from '../helpers/app'
 import { Client, linkIn, waitForMail } from '../helpers/client'
 
 let app: RunningApp
-beforeAll(async () => { app = await startApp() })
-afterAll(async () => { await app?.stop() })
+beforeAll(async () => {
+  app = await startApp()
+})
+afterAll(async () => {
+  await app?.stop()
+})
 
 describe('accounts', () => {
   it('registers, reads its labs, signs out and back in', async () => {

@@ -18,7 +18,9 @@ beforeAll(async () => {
   expect(lab.status).toBe(201)
   labId = lab.body.id
 })
-afterAll(async () => { await app?.stop() })
+afterAll(async () => {
+  await app?.stop()
+})
 
 async function invite(email: string, role: string): Promise<string> {
   const res = await owner.post(`/api/labs/${labId}/invites`, { email, role })
