@@ -1,0 +1,15 @@
+// Public API of the blueprint core: shapes, expansion onto sites, spacing rules, symmetry copies,
+// CSV site lists, and mapping to and from a scan through a lattice fit.
+export * from './schema'
+export type { SiteContext } from './context'
+export { siteContext, defaultMinSpacing, insideBounds } from './context'
+export type { BlueprintSite, ExpandOptions, ExpandedBlueprint, BlueprintDuplicate } from './expand'
+export { expandShape, expandBlueprint, siteKey } from './expand'
+export { artificialLattice } from './targets'
+export type { RuleIssue, RuleOptions } from './rules'
+export { checkRules, SAME_SITE_NM } from './rules'
+export type { ShapeTransform } from './transform'
+export { transformShape } from './transform'
+export { parseSiteCsv, sitesToCsv } from './csv'
+export type { FitFrame } from './frame'
+export { toScanFrame, toIdealFrame } from './frame'
