@@ -54,12 +54,21 @@ export default defineNuxtConfig({
     hooks: {
       // Ship the migrations inside .output so the production build is self-contained.
       async compiled(nitro) {
-        await cp(join(nitro.options.rootDir, 'server/database/migrations'), join(nitro.options.output.serverDir, 'migrations'), { recursive: true })
+        const { rootDir, output } = nitro.options
+        await cp(join(rootDir, 'server/database/migrations'), join(output.serverDir, 'migrations'), { recursive: true })
+        // The compute worker is its own bundle: worker threads load a file, not a chunk.
+        const { build } = await import('esbuild')
+        await build({
+          entryPoints: [join(rootDir, 'server/workers/compute.ts')],
+          outfile: join(output.serverDir, 'workers/compute.mjs'),
+          bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'warning',
+          banner: { js: 'import { createRequire as __cr } from "node:module"; const require = __cr(import.meta.url);' },
+        })
       },
     },
   },
   vite: {
-    optimizeDeps: { include: ['konva', 'vue-konva', 'chart.js', 'vue-chartjs'] },
+    optimizeDeps: { include: ['konva', 'vue-konva', 'chart.js', 'vue-chartjs', 'zod'] },
   },
   typescript: { strict: true },
   eslint: {

@@ -16,7 +16,7 @@ export function apiProblem(e: unknown): ApiProblem {
 }
 
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE'
-export interface ApiOptions { method?: Method, body?: unknown, query?: Record<string, unknown>, headers?: Record<string, string>, signal?: AbortSignal }
+export interface ApiOptions { method?: Method, body?: unknown, query?: Record<string, unknown>, headers?: Record<string, string>, signal?: AbortSignal, responseType?: 'json' | 'arrayBuffer' | 'blob' | 'text' }
 
 /**
  * `$fetch` with the result type stated by the caller. Nuxt's route-typed `$fetch` makes the type

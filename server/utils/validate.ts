@@ -54,3 +54,13 @@ export async function compute400<T>(fn: () => T | Promise<T>): Promise<T> {
     throw e
   }
 }
+
+/** The raw JSON body for core code that validates it itself; 400 when it is not JSON at all. */
+export async function readJson(event: H3Event): Promise<unknown> {
+  try {
+    return (await readBody(event)) ?? {}
+  }
+  catch {
+    throw createError({ statusCode: 400, message: 'body: not valid JSON', data: { field: 'body' } })
+  }
+}

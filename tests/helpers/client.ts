@@ -36,6 +36,14 @@ export class Client {
   patch<T = any>(path: string, body?: unknown) { return this.request<T>('PATCH', path, body ?? {}) }
   delete<T = any>(path: string) { return this.request<T>('DELETE', path) }
 
+  /** Multipart upload of one file with text fields, as the browser's upload form sends it. */
+  upload<T = any>(path: string, file: { name: string, data: Uint8Array | string, type?: string }, fields: Record<string, string | number> = {}) {
+    const form = new FormData()
+    for (const [k, v] of Object.entries(fields)) form.append(k, String(v))
+    form.append('file', new Blob([file.data as BlobPart], { type: file.type ?? 'application/octet-stream' }), file.name)
+    return this.request<T>('POST', path, undefined, { body: form })
+  }
+
   async register(email: string, name = 'Test User', password = 'correct horse battery') {
     const res = await this.post('/api/auth/register', { email, password, name })
     if (res.status !== 200) throw new Error(`register ${email}: ${res.status} ${JSON.stringify(res.body)}`)

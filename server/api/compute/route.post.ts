@@ -1,0 +1,5 @@
+// The route solver, stateless (contract in DESIGN.md §4). Runs in a worker with a time limit.
+export default defineEventHandler(async (event) => {
+  await requireUserId(event)
+  return runCompute({ kind: 'route', input: await readJson(event) })
+})
