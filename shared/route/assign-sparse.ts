@@ -59,7 +59,7 @@ function solveLevel(spec: AssignSpec, clock: Clock | undefined, opts: SparseOpti
   const { nRows: n, nCols: m, rowXY, colXY } = spec
   if (n === 0 || m === 0) return { rowMatch: new Int32Array(n).fill(-1), v: new Float64Array(m), cost: 0, bound: 0, exact: true }
   const colGrid = gridOf(pointsOf(colXY), 2)
-  let vInit = new Float64Array(m)
+  const vInit = new Float64Array(m)
   let k = Math.min(m, opts.k ?? 12)
   if (n > BASE_ROWS) {
     // Coarse level: a quarter of the rows and of the columns, same geometry and cost.
@@ -78,7 +78,8 @@ function solveLevel(spec: AssignSpec, clock: Clock | undefined, opts: SparseOpti
       subGrid.knn(colXY[2 * j]!, colXY[2 * j + 1]!, 1, id, d2)
       vInit[j] = Math.min(0, coarse.v[id[0]!]!)
     }
-  } else if (n * m <= 2e6) {
+  }
+  else if (n * m <= 2e6) {
     k = m
   }
   clock?.check()

@@ -82,4 +82,3 @@ export class Occupancy {
     return [...out.values()]
   }
 }
-

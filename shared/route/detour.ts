@@ -26,6 +26,7 @@ class Heap {
     }
     k[i] = key; v[i] = val
   }
+
   pop(): number {
     const k = this.k, v = this.v
     const top = v[0]!
@@ -106,9 +107,11 @@ export function findDetour(occ: Occupancy, metric: Metric, atom: number, p: Poin
       if (!segOk(nx, ny, x2, y2)) continue
       if (m === undefined) {
         m = gi.length
-        gi.push(i2); gj.push(j2); gs.push(g2); par.push(n); closed.push(false)
+        gi.push(i2); gj.push(j2); gs.push(g2)
+        par.push(n); closed.push(false)
         index.set(kk, m)
-      } else {
+      }
+      else {
         gs[m] = g2; par[m] = n
       }
       open.push(g2 + metric.norm(s[0] - x2, s[1] - y2), m)

@@ -99,7 +99,7 @@ export class PointGrid {
    * Calls fn for every point in cells that may lie within r of the segment a–b (a superset).
    * fn may return true to stop the scan early; nearSegment then returns true.
    */
-  nearSegment(ax: number, ay: number, bx: number, by: number, r: number, fn: (id: number) => boolean | void): boolean {
+  nearSegment(ax: number, ay: number, bx: number, by: number, r: number, fn: (id: number) => boolean | undefined): boolean {
     const dx = bx - ax, dy = by - ay
     const cy0 = this.cy(Math.min(ay, by) - r), cy1 = this.cy(Math.max(ay, by) + r)
     for (let cy = cy0; cy <= cy1; cy++) {
@@ -109,7 +109,8 @@ export class PointGrid {
       let t0 = 0, t1 = 1
       if (Math.abs(dy) < 1e-15) {
         if (ay < ylo || ay > yhi) continue
-      } else {
+      }
+      else {
         let ta = (ylo - ay) / dy, tb = (yhi - ay) / dy
         if (ta > tb) { const t = ta; ta = tb; tb = t }
         t0 = Math.max(0, ta)
@@ -173,7 +174,8 @@ export class PointGrid {
               let j = found++
               while (j > 0 && d2s[j - 1]! > d2) { d2s[j] = d2s[j - 1]!; ids[j] = ids[j - 1]!; j-- }
               d2s[j] = d2; ids[j] = id
-            } else if (d2 < d2s[k - 1]!) {
+            }
+            else if (d2 < d2s[k - 1]!) {
               let j = k - 1
               while (j > 0 && d2s[j - 1]! > d2) { d2s[j] = d2s[j - 1]!; ids[j] = ids[j - 1]!; j-- }
               d2s[j] = d2; ids[j] = id

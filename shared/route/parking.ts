@@ -30,7 +30,8 @@ export function findParking(q: ParkingQuery): Point[] | null {
   if (metric.kind === 'lattice' && metric.basis) {
     [b1, b2] = metric.basis
     o = q.origin ?? from
-  } else {
+  }
+  else {
     const h = Math.max(c, 0.25)
     b1 = [h, 0]; b2 = [0, h]; o = from
   }

@@ -15,7 +15,11 @@ import type { MoveKind, Point } from './types'
 export interface Task { atom: number, site: number }
 
 export interface PlannedMove {
-  atom: number, site: number, path: Point[], kind: MoveKind, detour: boolean
+  atom: number
+  site: number
+  path: Point[]
+  kind: MoveKind
+  detour: boolean
   /** How the planner got to this move (diagnostics): in order, retried, cycle break, parking, forced. */
   phase: 'ready' | 'retry' | 'cycle' | 'park' | 'forced'
 }
@@ -43,9 +47,14 @@ class KeyHeap {
     const k = this.k, v = this.v
     let i = k.length
     k.push(key); v.push(val)
-    while (i > 0) { const p = (i - 1) >> 1; if (k[p]! <= key) break; k[i] = k[p]!; v[i] = v[p]!; i = p }
+    while (i > 0) {
+      const p = (i - 1) >> 1
+      if (k[p]! <= key) break
+      k[i] = k[p]!; v[i] = v[p]!; i = p
+    }
     k[i] = key; v[i] = val
   }
+
   pop(): number {
     const k = this.k, v = this.v
     const top = v[0]!, lk = k.pop()!, lv = v.pop()!

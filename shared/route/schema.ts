@@ -25,7 +25,7 @@ export const RouteInput = z.object({
   sites: z.array(Pt, { error: 'sites must be a list of [x, y]' }).min(1, 'at least one site is needed').max(MAX_ROUTE_POINTS, `at most ${MAX_ROUTE_POINTS} sites`),
   lattice: z.object({ a1: Pt, a2: Pt, origin: Pt }).optional(),
   clearance_nm: z.number({ error: 'must be a number' }).min(0, 'must not be negative').max(100, 'at most 100 nm').optional(),
-  cost: z.enum(['distance', 'squared'], { error: "must be 'distance' or 'squared'" }).optional(),
+  cost: z.enum(['distance', 'squared'], { error: 'must be \'distance\' or \'squared\'' }).optional(),
   locked: z.array(index).optional(),
   excluded: z.array(index).optional(),
   keep_out: z.array(z.array(Pt).min(3, 'a polygon needs at least 3 corners').max(MAX_KEEP_OUT_VERTICES)).max(MAX_KEEP_OUT).optional(),

@@ -42,6 +42,7 @@ class MinHeap {
     }
     key[i] = k; val[i] = v
   }
+
   /** Pops the minimum; returns its value (the key is left in topKey). */
   topKey = 0
   pop(): number {
