@@ -31,7 +31,8 @@ export function useMarksAutosave(scanId: Ref<number | undefined>) {
     clearTimeout(timer)
     timer = setTimeout(save, 700)
   }
-  watch(() => marks.marks, () => {
+  // Dirty can turn on without a new array (the end of a live drag), so watch both.
+  watch(() => [marks.marks, marks.dirty], () => {
     if (!marks.dirty) return
     if (status.value !== 'conflict') status.value = 'pending'
     schedule()

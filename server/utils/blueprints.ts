@@ -1,0 +1,43 @@
+import type { H3Event } from 'h3'
+import { and, desc, eq } from 'drizzle-orm'
+import { expandBlueprint } from '#shared/blueprint/expand'
+import type { Role } from '#shared/roles'
+import type { Db } from './db'
+
+export type BlueprintRow = typeof schema.blueprints.$inferSelect
+
+/** The blueprint version behind an id, for a caller with at least `role` in its lab. */
+export async function blueprintForCaller(event: H3Event, role: Role) {
+  await requireUserId(event)
+  const id = idParam(event, 'blueprintId')
+  const db = await useDb()
+  const blueprint = await db.query.blueprints.findFirst({ where: eq(schema.blueprints.id, id) })
+  if (!blueprint) throw createError({ statusCode: 404, message: 'No such blueprint' })
+  const access = await requireLabRole(event, blueprint.lab_id, role)
+  return { db, blueprint, access }
+}
+
+export async function latestInLineage(db: Db, lineage: number) {
+  return db.query.blueprints.findFirst({ where: eq(schema.blueprints.lineage, lineage), orderBy: desc(schema.blueprints.version) })
+}
+
+export async function versionsOf(db: Db, lineage: number) {
+  return db.select({ id: schema.blueprints.id, version: schema.blueprints.version, name: schema.blueprints.name, site_count: schema.blueprints.site_count, created_at: schema.blueprints.created_at, author: schema.users.name })
+    .from(schema.blueprints).innerJoin(schema.users, eq(schema.users.id, schema.blueprints.created_by))
+    .where(eq(schema.blueprints.lineage, lineage)).orderBy(desc(schema.blueprints.version))
+}
+
+/** Expands the shapes to sites in the ideal frame (throws InputError for a bad shape). */
+export function expandRow(row: Pick<BlueprintRow, 'shapes' | 'surface' | 'site' | 'min_spacing_nm'>) {
+  return expandBlueprint(row.shapes as Parameters<typeof expandBlueprint>[0], row.surface, row.site, row.min_spacing_nm ? { minSpacing_nm: row.min_spacing_nm } : {})
+}
+
+export async function buildBlueprints(db: Db, labId: number, buildId: number) {
+  const rows = await db.select().from(schema.blueprints)
+    .where(and(eq(schema.blueprints.lab_id, labId), eq(schema.blueprints.build_id, buildId)))
+    .orderBy(desc(schema.blueprints.version))
+  // Latest version of each lineage, newest lineage first.
+  const latest = new Map<number, BlueprintRow>()
+  for (const r of rows) if (!latest.has(r.lineage)) latest.set(r.lineage, r)
+  return [...latest.values()].sort((a, b) => b.created_at.getTime() - a.created_at.getTime())
+}

@@ -1,0 +1,17 @@
+// Public API of the scan core. Everything here is browser-safe. Decoding of uploaded files
+// (PNG/TIFF/JPEG need node:zlib) is server-only: import it from './decode'.
+export type { Grid, GridLike, PixelSize, RawScan, ScanFormat } from './types'
+export { MAX_SIDE, checkGrid, pixelPair } from './grid'
+export { FORMAT_NAMES, formatFromFilename, sniffFormat } from './sniff'
+export { decodeTextGrid } from './text'
+export { toHeights, type HeightScale } from './heights'
+export { decodeFloat32Grid, encodeFloat32Grid } from './gridfile'
+export { fitPlane, levelLinesMedian, levelLinesMedianDiff, levelLinesPolynomial, subtractPlane, type Plane } from './level'
+export { histogram, percentileRange, robustStats, MAD_TO_SIGMA, type Histogram, type RobustStats } from './contrast'
+export { COLORMAP_NAMES, COLORMAP_RAMPS, colormapLut, isColormapName, type ColormapName, type OklchRamp } from './colormap'
+export { linearSrgbToOklab, oklabToLinearSrgb, oklchToOklab, srgbToOklab, srgbToLinear, linearToSrgb } from './oklab'
+export { renderRGBA, type RenderOptions } from './render'
+export { lineProfile, type LineProfile } from './profile'
+export { detectAdatoms, DETECT_DEFAULTS, type DetectParams, type DetectResult, type Mark } from './detect'
+export { DetectInput, parseDetectInput, fieldOf, type DetectInputT } from './schema'
+export { syntheticScan, mulberry32, normalGenerator, FWHM_TO_SIGMA, type SyntheticAtom, type SyntheticOptions, type SyntheticScan } from './synthetic'
