@@ -5,6 +5,8 @@ import type { StepState } from '#shared/types/workspace'
 export function useStepStates() {
   const scan = useScanStore()
   const marks = useMarksStore()
+  const blueprint = useBlueprintStore()
+  const waves = useWavesStore()
   return computed<StepState[]>(() => [
     scan.meta
       ? { id: 'scan', label: 'Scan', status: 'done', detail: `${scan.meta.size_x_nm} × ${scan.meta.size_y_nm} nm · ${scan.meta.filename}` }
@@ -17,8 +19,20 @@ export function useStepStates() {
     { id: 'lattice', label: 'Lattice fit', status: 'empty', detail: marks.marks.length ? 'not fitted yet' : 'needs marks' },
     { id: 'blueprint', label: 'Blueprint', status: 'empty', detail: 'no shapes yet' },
     { id: 'route', label: 'Route', status: 'empty', detail: 'needs marks and a blueprint' },
-    { id: 'waves', label: 'Wave preview', status: 'empty', detail: 'needs a blueprint' },
+    wavesState(blueprint.sites.length, waves),
     { id: 'logbook', label: 'Night', status: 'empty', detail: 'needs a route' },
     { id: 'check', label: 'As-built check', status: 'empty', detail: 'needs an after-scan' },
   ])
+}
+
+const MODEL_NAMES = { corral: 'hard wall', chain: '1-D box', scattering: 'scattering' } as const
+
+function wavesState(sites: number, waves: ReturnType<typeof useWavesStore>): StepState {
+  const base = { id: 'waves', label: 'Wave preview' } as const
+  if (!sites) return { ...base, status: 'empty', detail: 'needs a blueprint' }
+  if (Object.values(waves.problems).some(Boolean)) return { ...base, status: 'attention', detail: 'a model parameter was refused' }
+  if (Object.values(waves.warnings).some(w => w.length)) return { ...base, status: 'attention', detail: `${MODEL_NAMES[waves.model]}: outside the model's range` }
+  const first = waves.ladder[0]
+  if (!first) return { ...base, status: 'empty', detail: `${sites} sites, not previewed yet` }
+  return { ...base, status: 'done', detail: `${MODEL_NAMES[waves.model]} · ${first.label} at ${first.E_eV.toFixed(3)} eV` }
 }

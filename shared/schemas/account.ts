@@ -30,7 +30,14 @@ export const SampleInput = z.object({
   temperature_K: z.number({ error: 'temperature_K must be a number' }).finite().gt(0, 'must be above 0 K').max(1000, 'at most 1000 K'),
   notes: z.string().max(5000, 'at most 5000 characters').optional(),
 })
-export const SamplePatch = SampleInput.partial().extend({ archived: z.boolean().optional() })
+// The sample's surface state for the wave preview (band bottom E0 vs E_F, m*/m_e, where from);
+// null clears it. Bounds as in shared/waves/schema.ts.
+export const SurfaceStateInput = z.object({
+  E0_eV: z.number({ error: 'E0_eV must be a number' }).finite().min(-5, 'must be ≥ −5 eV').max(5, 'must be ≤ 5 eV'),
+  m_eff: z.number({ error: 'm_eff must be a number' }).finite().gt(0, 'must be > 0 (in units of the electron mass)').max(10, 'must be ≤ 10'),
+  source: z.string().trim().max(300, 'at most 300 characters').optional(),
+})
+export const SamplePatch = SampleInput.partial().extend({ archived: z.boolean().optional(), surface_state: SurfaceStateInput.nullable().optional() })
 
 export type RegisterInput = z.infer<typeof RegisterInput>
 export type SampleInput = z.infer<typeof SampleInput>
