@@ -58,7 +58,8 @@ export function fitCircle(points: readonly Point[], field = 'sites'): CircleFit 
   let suu = 0, suv = 0, svv = 0, su = 0, sv = 0, suz = 0, svz = 0, sz = 0
   for (const [x, y] of points) {
     const u = x - mx, v = y - my, z = -(u * u + v * v)
-    suu += u * u; suv += u * v; svv += v * v; su += u; sv += v
+    suu += u * u; suv += u * v; svv += v * v
+    su += u; sv += v
     suz += u * z; svz += v * z; sz += z
   }
   const k = solve3([suu, suv, su, suv, svv, sv, su, sv, n], [suz, svz, sz])

@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { findSpectrumPeaks, matchPeaksToLevels, movingAverage } from '../../../shared/waves/peaks'
-import { lorentzian } from '../../../shared/waves/corral'
-import { corralLevels } from '../../../shared/waves/corral'
+import { corralLevels, lorentzian } from '../../../shared/waves/corral'
 
 function grid(from: number, to: number, n: number): number[] {
   return Array.from({ length: n }, (_, i) => from + ((to - from) * i) / (n - 1))
