@@ -34,5 +34,5 @@ function wavesState(sites: number, waves: ReturnType<typeof useWavesStore>): Ste
   if (Object.values(waves.warnings).some(w => w.length)) return { ...base, status: 'attention', detail: `${MODEL_NAMES[waves.model]}: outside the model's range` }
   const first = waves.ladder[0]
   if (!first) return { ...base, status: 'empty', detail: `${sites} sites, not previewed yet` }
-  return { ...base, status: 'done', detail: `${MODEL_NAMES[waves.model]} · ${first.label} at ${first.E_eV.toFixed(3)} eV` }
+  return { ...base, status: 'done', detail: `${MODEL_NAMES[waves.model]} · ${waves.model === 'scattering' ? 'first maximum' : 'lowest level'} ${first.E_eV.toFixed(3)} eV` }
 }

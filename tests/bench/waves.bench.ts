@@ -2,13 +2,16 @@
 // Synthetic inputs from a fixed-seed generator; figures are printed, never asserted.
 import * as math from 'mathjs'
 import { bench, section } from './harness'
-import { corralLevels, corralMap, corralModes } from '../../shared/waves/corral'
+import { corralLevels, corralMap, corralModes, lorentzian } from '../../shared/waves/corral'
 import { computeCorral } from '../../shared/waves/compute-corral'
 import { BLACK_DOT, ScatteringAtEnergy, scatteringMap, scatteringSpectrum, waveNumber } from '../../shared/waves/scattering'
 import { luFactor, luSolve } from '../../shared/waves/complex-lu'
 import { hankel1Zero } from '../../shared/waves/bessel'
 import { hankel1ZeroComplex } from '../../shared/waves/hankel-complex'
 import { checkAsBuilt } from '../../shared/compare/check'
+import { fitCircle } from '../../shared/waves/geometry'
+import { findSpectrumPeaks } from '../../shared/waves/peaks'
+import { parseSpectrumCsv } from '../../shared/waves/spectrum-csv'
 
 function rng(seed: number) {
   let s = seed
@@ -77,6 +80,22 @@ export async function run(): Promise<void> {
       hankel1ZeroComplex(x, 0.05 * x, out)
     }
   }, { runs: 5 })
+
+  section('wave preview in the browser: ring fit, measured spectrum')
+  const rc = rng(9)
+  const ring = (n: number, R: number) => Array.from({ length: n }, (_, k) => {
+    const t = (2 * Math.PI * k) / n
+    return [R * Math.cos(t) + (rc() - 0.5) * 0.05, R * Math.sin(t) + (rc() - 0.5) * 0.05] as [number, number]
+  })
+  const ring48 = ring(48, 7.13)
+  const ring400 = ring(400, 40)
+  await bench('fitCircle, 48 sites (Kåsa + Gauss–Newton)', () => fitCircle(ring48), { runs: 21 })
+  await bench('fitCircle, 400 sites', () => fitCircle(ring400), { runs: 21 })
+  const V = Array.from({ length: 4001 }, (_, i) => -0.5 + (0.7 * i) / 4000)
+  const dIdV = V.map(v => lorentzian(v + 0.43, 0.005) + lorentzian(v + 0.38, 0.008) + 0.05 * (rc() - 0.5))
+  await bench('findSpectrumPeaks, 4001 points, smoothing 5', () => findSpectrumPeaks(V, dIdV, { smooth: 5 }), { runs: 21 })
+  const csv = `bias (V),dI/dV\n${V.map((v, i) => `${v.toFixed(5)},${dIdV[i]!.toFixed(6)}`).join('\n')}`
+  await bench('parseSpectrumCsv, 4001 rows', () => parseSpectrumCsv(csv), { runs: 21 })
 
   section('as-built check')
   const rr = rng(7)
