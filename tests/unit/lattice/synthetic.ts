@@ -1,15 +1,10 @@
 // Fixed-seed generators for synthetic test inputs (mulberry32 PRNG, Box–Muller normals).
 import type { Vec2 } from '../../../shared/lattice/vec'
+import { mulberry32 } from '../../../shared/scan/synthetic'
 
+/** The same seeded PRNG as the scan core's synthetic topographs. */
 export function rng(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6D2B79F5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
+  return mulberry32(seed)
 }
 
 export function normal(rand: () => number): number {
