@@ -1,10 +1,10 @@
 // Canvas drawing pieces of the route layer, in world nm with sizes divided by the zoom s.
 
-export function polyline(c: CanvasRenderingContext2D, path: readonly number[][]) {
+export function routePolyline(c: CanvasRenderingContext2D, path: readonly number[][]) {
   c.moveTo(path[0]![0]!, path[0]![1]!)
   for (let k = 1; k < path.length; k++) c.lineTo(path[k]![0]!, path[k]![1]!)
 }
-export function arrowHead(c: CanvasRenderingContext2D, path: readonly number[][], size: number) {
+export function routeArrowHead(c: CanvasRenderingContext2D, path: readonly number[][], size: number) {
   const b = path[path.length - 1]!, a = path[path.length - 2]
   if (!a) return
   const ang = Math.atan2(b[1]! - a[1]!, b[0]! - a[0]!)
@@ -32,7 +32,7 @@ export function drawRouteOptions(c: CanvasRenderingContext2D, s: number, o: Rout
   c.fillStyle = 'rgba(236, 104, 98, 0.12)'
   for (const poly of keepOut) {
     c.beginPath()
-    polyline(c, poly)
+    routePolyline(c, poly)
     c.closePath()
     c.fill()
     c.stroke()
@@ -42,7 +42,7 @@ export function drawRouteOptions(c: CanvasRenderingContext2D, s: number, o: Rout
   if (d.length) {
     c.strokeStyle = '#f0a04b'
     c.beginPath()
-    polyline(c, d)
+    routePolyline(c, d)
     if (o.cursor) c.lineTo(o.cursor.x_nm, o.cursor.y_nm)
     c.stroke()
     c.fillStyle = '#f0a04b'
