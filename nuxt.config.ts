@@ -31,6 +31,8 @@ export default defineNuxtConfig({
     uploadMaxBytes: 256 * 1024 * 1024,
     publicBaseUrl: '',
     demo: false,
+    // Time limit of one route solve in the worker pool (ms); the solver stops itself at it.
+    routeTimeLimitMs: 180_000,
     smtp: { host: '', port: 587, secure: false, user: '', pass: '', from: 'Tessera <tessera@localhost>' },
     // A local SMTP server that keeps every message; on in development, opt-in elsewhere.
     fakeSmtp: { enabled: false, port: 2525 },

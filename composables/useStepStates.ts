@@ -7,6 +7,7 @@ export function useStepStates() {
   const marks = useMarksStore()
   const blueprint = useBlueprintStore()
   const waves = useWavesStore()
+  const route = useRouteStepState()
   return computed<StepState[]>(() => [
     scan.meta
       ? { id: 'scan', label: 'Scan', status: 'done', detail: `${scan.meta.size_x_nm} × ${scan.meta.size_y_nm} nm · ${scan.meta.filename}` }
@@ -18,7 +19,7 @@ export function useStepStates() {
         : { id: 'marks', label: 'Marks', status: 'attention', detail: 'no marks yet: detect or add' },
     { id: 'lattice', label: 'Lattice fit', status: 'empty', detail: marks.marks.length ? 'not fitted yet' : 'needs marks' },
     { id: 'blueprint', label: 'Blueprint', status: 'empty', detail: 'no shapes yet' },
-    { id: 'route', label: 'Route', status: 'empty', detail: 'needs marks and a blueprint' },
+    route.value,
     wavesState(blueprint.sites.length, waves),
     { id: 'logbook', label: 'Night', status: 'empty', detail: 'needs a route' },
     { id: 'check', label: 'As-built check', status: 'empty', detail: 'needs an after-scan' },
