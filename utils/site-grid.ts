@@ -9,9 +9,9 @@ export const ROW_MIN_PX = 6
 
 export interface Box { x0: number, y0: number, x1: number, y1: number }
 
-export type GridPlan =
-  | { mode: 'sites', spacing_px: number }
-  | { mode: 'rows', every: number, spacing_px: number }
+export type GridPlan
+  = | { mode: 'sites', spacing_px: number }
+    | { mode: 'rows', every: number, spacing_px: number }
 
 /** Shortest distance between sites of the (Bravais part of the) lattice, nm. */
 export function shortestVector(lat: Lattice): number {
@@ -45,7 +45,10 @@ export function forEachSiteInBox(lat: Lattice, box: Box, fn: (x: number, y: numb
     let u0 = Infinity, u1 = -Infinity, v0 = Infinity, v1 = -Infinity
     for (const [x, y] of [[box.x0, box.y0], [box.x1, box.y0], [box.x0, box.y1], [box.x1, box.y1]] as const) {
       const u = c.i11 * (x - bx) + c.i12 * (y - by), v = c.i21 * (x - bx) + c.i22 * (y - by)
-      u0 = Math.min(u0, u); u1 = Math.max(u1, u); v0 = Math.min(v0, v); v1 = Math.max(v1, v)
+      u0 = Math.min(u0, u)
+      u1 = Math.max(u1, u)
+      v0 = Math.min(v0, v)
+      v1 = Math.max(v1, v)
     }
     for (let j = Math.floor(v0); j <= Math.ceil(v1); j++) {
       for (let i = Math.floor(u0); i <= Math.ceil(u1); i++) {
@@ -94,7 +97,8 @@ export function rowSegments(lat: Lattice, box: Box, every: number, maxPerFamily 
     let lo = Infinity, hi = -Infinity
     for (const [x, y] of [[box.x0, box.y0], [box.x1, box.y0], [box.x0, box.y1], [box.x1, box.y1]] as const) {
       const m = (nx * x + ny * y - base) / step
-      lo = Math.min(lo, m); hi = Math.max(hi, m)
+      lo = Math.min(lo, m)
+      hi = Math.max(hi, m)
     }
     const m0 = Math.ceil(lo / every) * every
     let drawn = 0

@@ -67,3 +67,16 @@ export function cellMetrics(fitA1: Vec2, fitA2: Vec2, idealA1: Vec2, idealA2: Ve
 export function scanRectInIdeal(map: FrameMap, width_nm: number, height_nm: number): Vec2[] {
   return ([[0, 0], [width_nm, 0], [width_nm, height_nm], [0, height_nm]] as Vec2[]).map(map.toIdeal)
 }
+
+/**
+ * The site lattice of any site type through the map (origin = that type's site (0, 0, 0) in the
+ * scan, cell and basis carried by A): lets the grid show another site type before refitting.
+ */
+export function siteLatticeThrough(map: FrameMap, surface: string | Surface, site?: string): { a1: Vec2, a2: Vec2, origin: Vec2, basis?: Vec2[] } {
+  const ctx = siteContext(surface, site)
+  const offs = ctx.site.offsets_nm
+  const o0 = offs[0]!
+  const lat: { a1: Vec2, a2: Vec2, origin: Vec2, basis?: Vec2[] } = { a1: map.vecToScan(ctx.surface.a1), a2: map.vecToScan(ctx.surface.a2), origin: map.toScan(o0) }
+  if (offs.length > 1) lat.basis = offs.map(o => map.vecToScan([o[0] - o0[0], o[1] - o0[1]]))
+  return lat
+}

@@ -116,3 +116,25 @@ export function pivotSite(ctx: SiteContext, p: Vec2): [number, number, number] {
   const s = nearestSite(ctx.lattice, p)
   return [s.i, s.j, s.b]
 }
+
+/** The outline of a shape as polylines in the ideal frame (closed ones repeat their first point). */
+export function shapeOutline(shape: Shape, ctx: SiteContext, segments = 96): Vec2[][] {
+  const loop = (f: (t: number) => Vec2) => [Array.from({ length: segments + 1 }, (_, k) => f(2 * Math.PI * k / segments))]
+  switch (shape.type) {
+    case 'ring': return loop(t => [shape.center[0] + shape.radius_nm * Math.cos(t), shape.center[1] + shape.radius_nm * Math.sin(t)])
+    case 'ellipse': {
+      const a = (shape.angle_deg ?? 0) * Math.PI / 180
+      return loop((t) => {
+        const x = shape.semi_a_nm * Math.cos(t), y = shape.semi_b_nm * Math.sin(t)
+        return [shape.center[0] + x * Math.cos(a) - y * Math.sin(a), shape.center[1] + x * Math.sin(a) + y * Math.cos(a)]
+      })
+    }
+    case 'chain': {
+      const { start, end } = chainEnd(ctx, shape)
+      return [[start, end]]
+    }
+    case 'polygon': return [[...shape.vertices, shape.vertices[0]!]]
+    case 'patch': return [[...shape.region, shape.region[0]!]]
+    case 'sites': return []
+  }
+}

@@ -1,7 +1,7 @@
 // The fit's affine map for any point, against the core's own site mapping and hand computations.
 import { describe, expect, it } from 'vitest'
 import { expandShape, toScanFrame } from '../../../shared/blueprint'
-import { cellMetrics, frameMap, scanRectInIdeal } from '../../../shared/blueprint/frame-map'
+import { cellMetrics, frameMap, scanRectInIdeal, siteLatticeThrough } from '../../../shared/blueprint/frame-map'
 import { getSiteType, getSurface, latticeFromSurface } from '../../../shared/lattice'
 
 // Ag(111): a = 4.09 Å (Ashcroft & Mermin Table 4.3); the ideal cell a1 = (a/√2, 0), a2 at 120°.
@@ -70,5 +70,22 @@ describe('cellMetrics', () => {
     expect(m.scale[0]).toBeCloseTo(1.02, 10)
     expect(m.scale[1]).toBeCloseTo(1, 10)
     expect(m.shear_deg).toBeCloseTo(1, 9)
+  })
+})
+
+describe('siteLatticeThrough', () => {
+  it('gives the same lattice as placing the other site type directly (rigid case)', () => {
+    const fcc = latticeFromSurface(s, 'fcc', { origin: [6, 4], rotation_deg: 25 })
+    const viaMap = siteLatticeThrough(frameMap(fcc, s, 'fcc'), s, 'bridge')
+    const direct = latticeFromSurface(s, 'bridge', { origin: [6, 4], rotation_deg: 25 })
+    for (const k of ['a1', 'a2', 'origin'] as const) {
+      expect(viaMap[k][0]).toBeCloseTo(direct[k][0], 10)
+      expect(viaMap[k][1]).toBeCloseTo(direct[k][1], 10)
+    }
+    expect(viaMap.basis).toHaveLength(3)
+    viaMap.basis!.forEach((b, k) => {
+      expect(b[0]).toBeCloseTo(direct.basis![k]![0], 10)
+      expect(b[1]).toBeCloseTo(direct.basis![k]![1], 10)
+    })
   })
 })
