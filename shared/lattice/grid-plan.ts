@@ -2,7 +2,7 @@
 // SITE_MIN_PX apart on screen, else lattice rows along the close-packed directions, every k-th row
 // (k = 1, 2, 5, 10, 20, …) so that drawn rows stay at least ROW_MIN_PX apart. Work is bounded by
 // the screen, not by the scan: a 100 nm scan at full view draws a few hundred lines.
-import { compileLattice, type Lattice } from '../shared/lattice/lattice'
+import { compileLattice, type Lattice } from './lattice'
 
 export const SITE_MIN_PX = 7
 export const ROW_MIN_PX = 6

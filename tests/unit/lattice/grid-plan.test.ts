@@ -2,7 +2,7 @@
 // site enumeration (sitesInRect) and by brute force.
 import { describe, expect, it } from 'vitest'
 import { latticeFromSurface, sitesInRect } from '../../../shared/lattice'
-import { ROW_MIN_PX, SITE_MIN_PX, clipLine, forEachSiteInBox, gridPlan, rowFamilies, rowSegments } from '../../../utils/site-grid'
+import { ROW_MIN_PX, SITE_MIN_PX, clipLine, forEachSiteInBox, gridPlan, rowFamilies, rowSegments } from '../../../shared/lattice/grid-plan'
 
 // Ag(111), fcc hollows, turned 17°: nearest-neighbour distance a/√2 with a = 4.09 Å (Ashcroft & Mermin Table 4.3).
 const lat = latticeFromSurface('Ag(111)', 'fcc', { origin: [3, 4], rotation_deg: 17 })
