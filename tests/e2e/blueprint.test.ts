@@ -74,10 +74,14 @@ it('fit the lattice, draw a ring and a chain, save, reload: the same sites', asy
   await page.waitForSelector('[data-test=bp-shape-editor]')
   expect(await page.textContent('[data-test=bp-site-count]')).toBe('18')
   await page.click('[data-test=bp-tool-chain]')
-  await drag(page, [3, 16.5], [8, 16.5])
-  const drawn = Number(await page.textContent('[data-test=bp-site-count]'))
-  // 5 nm along the 10° row at 2 nn per atom: 5 / (2 · 0.2892) + 1 ≈ 9.6 → 10 atoms (hand computation).
-  expect(drawn).toBe(28)
+  // From the fcc site nearest (3, 16.5) nm along a1 (the 10° row) to 18 steps further: with the
+  // tool's spacing of 2 steps that is 18 / 2 + 1 = 10 atoms (hand computation).
+  const det = a1[0]! * a2[1]! - a1[1]! * a2[0]!
+  const [px, py] = [3 - 10.1, 16.5 - 9.7]
+  const [i0, j0] = [Math.round((px * a2[1]! - py * a2[0]!) / det), Math.round((a1[0]! * py - a1[1]! * px) / det)]
+  const start: [number, number] = [10.1 + i0 * a1[0]! + j0 * a2[0]!, 9.7 + i0 * a1[1]! + j0 * a2[1]!]
+  await drag(page, start, [start[0] + 18 * a1[0]!, start[1] + 18 * a1[1]!])
+  expect(await page.textContent('[data-test=bp-site-count]')).toBe('28')
   expect(await page.textContent('[data-test=bp-rules-summary]')).toContain('all clear')
 
   await page.fill('[data-test=bp-name]', 'Corral and chain')
