@@ -83,7 +83,7 @@ export const useLatticeStore = defineStore('lattice', () => {
     })
     const near = nearestSites(lat, xy)
     const saved = fit.value?.result.threshold_nm
-    const threshold_nm = typeof saved === 'number' && !hand.value ? saved : 0.3 * minSeparation_nm.value
+    const threshold_nm = typeof saved === 'number' ? saved : 0.3 * minSeparation_nm.value
     const off: number[] = []
     let ss = 0
     near.distance.forEach((d, k) => {

@@ -58,6 +58,12 @@ describe('lattice fit of a scan', () => {
     const parallel = await c.post(`/api/scans/${scanId}/lattice-fit`, { mode: 'hand', surface: 'Ag(111)', site: 'fcc', a1: [nn, 0], a2: [2 * nn, 0], origin: [1, 1] })
     expect(parallel.status).toBe(400)
     expect(parallel.body.data.field).toBe('a2')
+    // Parallel up to the rounding of typed digits (a2 = 2·a1 rounded to 5 decimals) counts as parallel too.
+    const typed = (v: number) => +v.toFixed(5)
+    const tilt = [nn * Math.cos(theta), nn * Math.sin(theta)]
+    const nearly = await c.post(`/api/scans/${scanId}/lattice-fit`, { mode: 'hand', surface: 'Ag(111)', site: 'fcc', a1: tilt.map(typed), a2: tilt.map(v => typed(2 * v)), origin: [1, 1] })
+    expect(nearly.status).toBe(400)
+    expect(nearly.body.data.field).toBe('a2')
     expect((await c.get(`/api/scans/${scanId}/lattice-fits`)).body.map((f: { version: number }) => f.version)).toEqual([3, 2, 1])
   })
 })
