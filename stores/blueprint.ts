@@ -75,6 +75,13 @@ export const useBlueprintStore = defineStore('blueprint', () => {
     })
   }, { immediate: true })
 
+  // Closing the tab with unsaved shapes asks first (the draft lives only in this page until saved).
+  if (import.meta.client) {
+    window.addEventListener('beforeunload', (e) => {
+      if (dirty.value && draft.value.length) e.preventDefault()
+    })
+  }
+
   function commit(next: DraftShape[]) {
     undoStack.value = [...undoStack.value.slice(-HISTORY + 1), draft.value]
     redoStack.value = []

@@ -1,6 +1,7 @@
 // In a real browser: a build whose scan carries marks on a known Ag(111) lattice (turned 10°),
 // fit the lattice in the lattice step, draw a ring and a chain with the blueprint tools, save,
-// reload, and find the same sites (the API's expanded sites and the counts shown, before and after).
+// reload, and find the same sites (the API's expanded sites and the counts shown, before and after);
+// and place the lattice by hand with the canvas handles.
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, expect, it } from 'vitest'
 import { startApp, type RunningApp } from '../helpers/app'
@@ -35,17 +36,18 @@ async function drag(page: Page, from: [number, number], to: [number, number]) {
   await page.mouse.up()
 }
 
-it('fit the lattice, draw a ring and a chain, save, reload: the same sites', async () => {
+/** A signed-in page and an API client, and a build whose 20 nm scan has 81 marks on fcc hollows of
+ * an Ag(111) lattice turned 10°, three nearest-neighbour steps apart, centred at (10.1, 9.7) nm. */
+async function setup(email: string) {
   const page = await (await browser.newContext({ viewport: { width: 1500, height: 950 } })).newPage()
-  await register(page, app.url, { name: 'Ada Builder', email: 'ada@lab.test', password: 'lateral-manipulation' })
+  await register(page, app.url, { name: 'Ada Builder', email, password: 'lateral-manipulation' })
   await page.waitForURL(/\/labs/)
   const c = new Client(app.url)
-  await c.post('/api/auth/login', { email: 'ada@lab.test', password: 'lateral-manipulation' })
+  await c.post('/api/auth/login', { email, password: 'lateral-manipulation' })
   const lab = (await c.post('/api/labs', { name: 'Corral lab' })).body
   const sample = (await c.post(`/api/labs/${lab.id}/samples`, { name: 'Ag crystal', surface: 'Ag(111)', adsorbate: 'Co', temperature_K: 5 })).body
   const build = (await c.post(`/api/labs/${lab.id}/samples/${sample.id}/builds`, { name: 'Corral' })).body
   const scan = (await c.upload(`/api/labs/${lab.id}/samples/${sample.id}/scans`, { name: 'flat.csv', data: '0,0\n0,0\n' }, { size_x_nm: 20, size_y_nm: 20, build_id: build.id })).body
-  // 81 marks on fcc hollows of a lattice turned 10°, three nearest-neighbour steps apart.
   const a1 = [nn * Math.cos(theta), nn * Math.sin(theta)]
   const a2 = [nn * Math.cos(theta + (2 * Math.PI) / 3), nn * Math.sin(theta + (2 * Math.PI) / 3)]
   const marks = []
@@ -53,7 +55,11 @@ it('fit the lattice, draw a ring and a chain, save, reload: the same sites', asy
     for (let j = -12; j <= 12; j += 3) marks.push({ x_nm: 10.1 + i * a1[0]! + j * a2[0]!, y_nm: 9.7 + i * a1[1]! + j * a2[1]!, height_nm: 0.08, score: 1 })
   }
   expect((await c.post(`/api/scans/${scan.id}/marks`, { marks, base_version: 0 })).status).toBe(200)
+  return { page, c, lab, build, scan, a1, a2 }
+}
 
+it('fit the lattice, draw a ring and a chain, save, reload: the same sites', async () => {
+  const { page, c, lab, build, a1, a2 } = await setup('ada@lab.test')
   await page.goto(`${app.url}/labs/${lab.id}/builds/${build.id}`)
   await page.waitForSelector('[data-test=canvas]')
   await page.click('[data-test=step-lattice]')
@@ -103,4 +109,40 @@ it('fit the lattice, draw a ring and a chain, save, reload: the same sites', asy
   const after = (await c.get(`/api/blueprints/${(await c.get(`/api/labs/${lab.id}/builds/${build.id}/blueprints`)).body[0].id}`)).body
   expect(after.sites).toEqual(before.sites)
   expect(await page.textContent('[data-test=bp-save-status]')).toContain('saved as version 1')
+})
+
+it('place the lattice by hand: the knob turns it, Ctrl+Z undoes, the cross moves it, save adds a version', async () => {
+  const { page, c, lab, build, scan } = await setup('hal@lab.test')
+  await page.goto(`${app.url}/labs/${lab.id}/builds/${build.id}`)
+  await page.waitForSelector('[data-test=canvas]')
+  await page.click('[data-test=step-lattice]')
+  await page.click('[data-test=lattice-hand]')
+  await page.waitForSelector('[data-test=lattice-hand-panel]')
+  const origin = async () => [Number(await page.inputValue('#hand-ox')), Number(await page.inputValue('#hand-oy'))] as const
+  const [ox, oy] = await origin()
+  const at = await view(page)
+  const [sx, sy] = at(ox, oy)
+  expect(Number(await page.inputValue('[data-test=hand-rotation]'))).toBeCloseTo(0, 6)
+  // The knob sits 70 px along a1 (here +x); dragging it to 30° below the x axis on screen turns
+  // the lattice by +30° (the scan's y axis points down, like the screen's).
+  await page.mouse.move(sx + 70, sy)
+  await page.mouse.down()
+  await page.mouse.move(sx + 70 * Math.cos(Math.PI / 6), sy + 70 * Math.sin(Math.PI / 6), { steps: 6 })
+  await page.mouse.up()
+  expect(Number(await page.inputValue('[data-test=hand-rotation]'))).toBeCloseTo(30, 1)
+  await page.keyboard.press('Control+z')
+  expect(Number(await page.inputValue('[data-test=hand-rotation]'))).toBeCloseTo(0, 6)
+  await page.keyboard.press('Control+Shift+z')
+  expect(Number(await page.inputValue('[data-test=hand-rotation]'))).toBeCloseTo(30, 1)
+  await drag(page, [ox, oy], [ox + 1, oy])
+  const [nx, ny] = await origin()
+  expect(nx - ox).toBeCloseTo(1, 2)
+  expect(ny - oy).toBeCloseTo(0, 2)
+  await page.click('[data-test=hand-save]')
+  await page.waitForSelector('[data-test=lattice-stats]')
+  const fits = (await c.get(`/api/scans/${scan.id}/lattice-fits`)).body
+  expect(fits).toHaveLength(1)
+  expect(fits[0]).toMatchObject({ source: 'hand', version: 1, site: 'fcc' })
+  expect(fits[0].result.rotation_deg).toBeCloseTo(30, 1)
+  expect(await page.textContent('[data-test=lattice-versions]')).toContain('by hand')
 })
