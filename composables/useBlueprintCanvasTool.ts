@@ -175,7 +175,9 @@ export function useBlueprintCanvasTool(editable: Ref<boolean>) {
         t.preview = candidate(g.from, g.site, q, dragged)
       }
       else if (g.kind === 'handle') {
-        const next = dragHandle(g.original, g.handle, q, ctx.value!)
+        let next = dragHandle(g.original, g.handle, q, ctx.value!)
+        // A ring's radius stops at the smallest that holds its atoms, rather than refusing the drag.
+        if (next.type === 'ring') next = { ...next, radius_nm: ringRadius(next.radius_nm, next.n) }
         if (!problem(next)) bp.replace(g.id, next, true)
       }
       else if (g.kind === 'move') {
