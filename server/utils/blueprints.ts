@@ -1,6 +1,9 @@
 import type { H3Event } from 'h3'
 import { and, desc, eq } from 'drizzle-orm'
 import { expandBlueprint } from '#shared/blueprint/expand'
+import type { FitFrame } from '#shared/blueprint/frame'
+import { frameMap, scanRectInIdeal } from '#shared/blueprint/frame-map'
+import type { Bounds } from '#shared/blueprint/schema'
 import type { Role } from '#shared/roles'
 import type { Db } from './db'
 
@@ -28,8 +31,17 @@ export async function versionsOf(db: Db, lineage: number) {
 }
 
 /** Expands the shapes to sites in the ideal frame (throws InputError for a bad shape). */
-export function expandRow(row: Pick<BlueprintRow, 'shapes' | 'surface' | 'site' | 'min_spacing_nm'>) {
-  return expandBlueprint(row.shapes as Parameters<typeof expandBlueprint>[0], row.surface, row.site, row.min_spacing_nm ? { minSpacing_nm: row.min_spacing_nm } : {})
+export function expandRow(row: Pick<BlueprintRow, 'shapes' | 'surface' | 'site' | 'min_spacing_nm'>, bounds?: Bounds) {
+  return expandBlueprint(row.shapes as Parameters<typeof expandBlueprint>[0], row.surface, row.site, { ...(row.min_spacing_nm && { minSpacing_nm: row.min_spacing_nm }), ...(bounds && { bounds }) })
+}
+
+/** The rectangle of a scan of the lab, in the blueprint's ideal frame through the scan's latest lattice fit. */
+export async function scanBoundsInIdeal(db: Db, labId: number, scanId: number, surface: string): Promise<Bounds> {
+  const scan = await db.query.scans.findFirst({ where: and(eq(schema.scans.id, scanId), eq(schema.scans.lab_id, labId)) })
+  if (!scan) throw createError({ statusCode: 400, message: 'scan_id: no such scan in this lab', data: { field: 'scan_id' } })
+  const fit = await latestFit(db, scan.id)
+  if (!fit) throw createError({ statusCode: 400, message: 'scan_id: this scan has no lattice fit to place the blueprint with', data: { field: 'scan_id' } })
+  return compute400(() => scanRectInIdeal(frameMap(fit.result as unknown as FitFrame, surface, fit.site), scan.size_x_nm, scan.size_y_nm))
 }
 
 export async function buildBlueprints(db: Db, labId: number, buildId: number) {

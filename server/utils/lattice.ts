@@ -6,7 +6,11 @@ export function handLattice(body: { surface: string, site: string, a1: [number, 
   const surface = getSurface(body.surface)
   const site = getSiteType(surface, body.site)
   const cross = body.a1[0] * body.a2[1] - body.a1[1] * body.a2[0]
-  if (!(Math.abs(cross) > 1e-9)) throw new InputError('a2', 'a1 and a2 must not be parallel')
+  const l1 = Math.hypot(...body.a1), l2 = Math.hypot(...body.a2)
+  if (!(l1 > 1e-6)) throw new InputError('a1', 'a1 has zero length')
+  if (!(l2 > 1e-6)) throw new InputError('a2', 'a2 has zero length')
+  // Relative test (|sin| of the angle between them): typed-in vectors that are parallel up to rounding count as parallel.
+  if (!(Math.abs(cross) > 1e-3 * l1 * l2)) throw new InputError('a2', 'a1 and a2 must not be parallel: the two cell vectors must span the plane')
   return {
     surface: surface.id, site: site.name, a1: body.a1, a2: body.a2, origin: body.origin,
     ...(body.basis && body.basis.length > 1 && { basis: body.basis }),

@@ -11,5 +11,7 @@ export const BlueprintSave = z.object({
   min_spacing_nm: z.number().finite().gt(0, 'must be above 0 nm').max(100).optional(),
   lineage: z.number().int().positive().optional(),
   base_version: z.number().int().positive().optional(),
+  /** A scan of the lab with a lattice fit: chains must then stay inside that scan. */
+  scan_id: z.number().int().positive().optional(),
 })
 export type BlueprintSave = z.infer<typeof BlueprintSave>

@@ -1,6 +1,10 @@
 import { desc, eq } from 'drizzle-orm'
 
+// Every saved lattice fit of a scan, newest first, with who saved it.
 export default defineEventHandler(async (event) => {
   const { db, scan } = await scanForCaller(event, 'viewer')
-  return db.query.latticeFits.findMany({ where: eq(schema.latticeFits.scan_id, scan.id), orderBy: desc(schema.latticeFits.version) })
+  const rows = await db.select({ fit: schema.latticeFits, author: schema.users.name })
+    .from(schema.latticeFits).innerJoin(schema.users, eq(schema.users.id, schema.latticeFits.created_by))
+    .where(eq(schema.latticeFits.scan_id, scan.id)).orderBy(desc(schema.latticeFits.version))
+  return rows.map(r => ({ ...r.fit, author: r.author }))
 })

@@ -4,7 +4,8 @@ import { BlueprintSave } from '#shared/schemas/blueprint'
 
 // Saves a blueprint: a new lineage, or a new version of an existing one. The shapes are expanded
 // first, so a shape that cannot be built is refused and nothing is saved half-way. Editing from an
-// older version than the latest is refused (409) rather than silently overwriting.
+// older version than the latest is refused (409) rather than silently overwriting. With scan_id,
+// chains must stay inside that scan (its rectangle through its latest lattice fit).
 export default defineEventHandler(async (event) => {
   const access = await requireLabRole(event, idParam(event, 'labId'), 'member')
   const db = await useDb()
@@ -12,7 +13,8 @@ export default defineEventHandler(async (event) => {
   const body = await readBody400(event, BlueprintSave)
   // The site type is stored resolved (the surface's default when none was named).
   const site = await compute400(() => siteContext(body.surface, body.site).site.name)
-  const expanded = await compute400(() => expandRow({ shapes: body.shapes, surface: body.surface, site, min_spacing_nm: body.min_spacing_nm ?? null }))
+  const bounds = body.scan_id === undefined ? undefined : await scanBoundsInIdeal(db, access.labId, body.scan_id, body.surface)
+  const expanded = await compute400(() => expandRow({ shapes: body.shapes, surface: body.surface, site, min_spacing_nm: body.min_spacing_nm ?? null }, bounds))
   let version = 1
   let lineage: number | undefined
   if (body.lineage !== undefined) {
