@@ -27,7 +27,7 @@ export const useViewStore = defineStore('view', () => {
   const layers = reactive<Record<LayerId, LayerState>>({
     scan: { visible: true, opacity: 1 },
     marks: { visible: true, opacity: 1 },
-    sites: { visible: true, opacity: 0.6 },
+    sites: { visible: true, opacity: 0.35 },
     blueprint: { visible: true, opacity: 1 },
     route: { visible: true, opacity: 1 },
     waves: { visible: false, opacity: 0.7 },

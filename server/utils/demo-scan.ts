@@ -24,6 +24,8 @@ export function demoTopograph() {
     width: 512, height: 512, pixel_nm: size_nm / 512, atoms, fwhm_nm: 0.85,
     noise_nm: 0.003, tilt: { dz_dx: 0.004, dz_dy: -0.002 }, line_offset_nm: 0.006, seed: 7,
   })
-  const fit = fitLattice({ surface: 'Ag(111)', site: 'fcc', marks: atoms.map(a => [a.x_nm, a.y_nm]), affine: true })
-  return { scan, atoms, fit, size_nm }
+  // Marks as a detection would give them: each within a few pm of its adatom.
+  const marks = atoms.map(a => ({ ...a, x_nm: a.x_nm + 0.008 * (rand() - 0.5), y_nm: a.y_nm + 0.008 * (rand() - 0.5) }))
+  const fit = fitLattice({ surface: 'Ag(111)', site: 'fcc', marks: marks.map(a => [a.x_nm, a.y_nm]), affine: true })
+  return { scan, atoms, marks, fit, size_nm }
 }

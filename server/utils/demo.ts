@@ -31,7 +31,7 @@ export async function seedDemo(db: Db) {
 // A build in progress on the Ag crystal: the night's starting scan with its marks and lattice
 // fit, and a blueprint for a 24-atom ring, so every later step has something to work on.
 async function seedDemoBuild(db: Db, ids: { labId: number, sampleId: number, userId: number }) {
-  const { scan, atoms, fit, size_nm } = demoTopograph()
+  const { scan, marks, fit, size_nm } = demoTopograph()
   const [build] = await db.insert(schema.builds).values({ lab_id: ids.labId, sample_id: ids.sampleId, name: 'Ring of 24, R ≈ 3.5 nm', notes: 'First corral on AG-07; compare with the hard-wall levels.', created_by: ids.userId }).returning()
   const base = `${ids.labId}:${ids.sampleId}:demo-topograph`
   const grid = Buffer.from(encodeFloat32Grid(scan))
@@ -43,7 +43,7 @@ async function seedDemoBuild(db: Db, ids: { labId: number, sampleId: number, use
     size_x_nm: size_nm, size_y_nm: size_nm, offset_x_nm: 120, offset_y_nm: -45, rotation_deg: 0, bias_V: -0.1, setpoint_A: 5e-11,
     taken_at: new Date(Date.now() - 3 * 3600_000), notes: 'Tip conditioned on bare Ag; Co adatoms imaged at −100 mV, 50 pA.', created_by: ids.userId,
   }).returning()
-  await db.insert(schema.markSets).values({ scan_id: row!.id, version: 1, source: 'detect', marks: atoms.map(a => ({ ...a, score: 40 })), count: atoms.length, created_by: ids.userId })
+  await db.insert(schema.markSets).values({ scan_id: row!.id, version: 1, source: 'detect', marks: marks.map(a => ({ ...a, score: 40 })), count: marks.length, created_by: ids.userId })
   await db.insert(schema.latticeFits).values({ scan_id: row!.id, version: 1, surface: fit.surface, site: fit.site, source: 'fit', result: { ...fit }, residual_nm: fit.residual_nm, created_by: ids.userId })
   const [bp] = await db.insert(schema.blueprints).values({
     lab_id: ids.labId, sample_id: ids.sampleId, build_id: build!.id, lineage: 0, version: 1, name: 'Ring 24', surface: 'Ag(111)', site: 'fcc',
