@@ -22,6 +22,9 @@ export interface AssignResult {
   bound: number
   exact: boolean
   method: 'dense' | 'sparse'
+  /** Row and column duals certifying the result (sparse solver only). */
+  u?: Float64Array
+  v?: Float64Array
 }
 
 /**

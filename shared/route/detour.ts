@@ -58,14 +58,19 @@ function gridSteps(metric: Metric, clearance_nm: number, span_nm: number): { b1:
   return { b1: [h, 0], b2: [0, h], steps: [[1, 0], [1, 1], [0, 1], [-1, 1], [-1, 0], [-1, -1], [0, -1], [1, -1]] }
 }
 
+/** Half-width the search region extends beyond the box of start and site. */
+export function detourMargin(clearance_nm: number, span_nm: number): number {
+  return Math.max(3, 4 * clearance_nm, 0.5 * span_nm)
+}
+
 export function findDetour(occ: Occupancy, metric: Metric, atom: number, p: Point, s: Point, opts: DetourOptions = {}): Point[] | null {
   const c = occ.clearance_nm
   const span = Math.hypot(s[0] - p[0], s[1] - p[1])
   const { b1, b2, steps } = gridSteps(metric, c, span)
-  const margin = Math.max(3, 4 * c, 0.5 * span)
+  const margin = detourMargin(c, span)
   const xmin = Math.min(p[0], s[0]) - margin, xmax = Math.max(p[0], s[0]) + margin
   const ymin = Math.min(p[1], s[1]) - margin, ymax = Math.max(p[1], s[1]) + margin
-  const maxNodes = opts.maxNodes ?? 8000
+  const maxNodes = opts.maxNodes ?? 2500
   const zones = occ.zones
   const segOk = (ax: number, ay: number, bx: number, by: number) => {
     for (const z of zones) if (segmentEntersZone(z, ax, ay, bx, by)) return false

@@ -1,15 +1,19 @@
 // Move ordering by topological sort (Kahn 1962) of a precedence graph built from the clearance
 // rule: if move k's path brushes past atom j's start, j moves first; if it brushes past j's site,
 // k moves first. Ties go to sites nearer the blueprint's centre (interior before outline), then
-// by angle (round a ring in sequence). Every move is re-checked against the positions at its
-// turn; cycles are broken by an A* detour, or by parking an atom and finishing it last.
+// by angle (round a ring in sequence); a move that must precede another inherits its priority,
+// and no move runs ahead of the innermost unfinished band of 2·clearance, so that a move left
+// waiting is resolved while the structure around it is still open rather than walled in. Every
+// move is re-checked against the positions at its turn; cycles are broken by an A* detour (not
+// repeated until an atom came or went nearby), or by parking an atom and finishing it last.
 import type { Clock } from './clock'
 import { CLEARANCE_EPS_NM, type Occupancy } from './clearance'
-import { findDetour } from './detour'
+import { detourMargin, findDetour } from './detour'
 import { segPointDist2 } from './geometry'
 import { PointGrid, type Bounds } from './grid'
 import type { Metric } from './metric'
 import { findParking } from './parking'
+import { inheritPriority, KeyHeap } from './priority'
 import type { MoveKind, Point } from './types'
 
 export interface Task { atom: number, site: number }
@@ -38,41 +42,7 @@ export interface PlanInput {
 }
 
 const PENDING = 0, PARKED = 1, DONE = 2
-
-class KeyHeap {
-  private k: number[] = []
-  private v: number[] = []
-  get size() { return this.k.length }
-  push(key: number, val: number) {
-    const k = this.k, v = this.v
-    let i = k.length
-    k.push(key); v.push(val)
-    while (i > 0) {
-      const p = (i - 1) >> 1
-      if (k[p]! <= key) break
-      k[i] = k[p]!; v[i] = v[p]!; i = p
-    }
-    k[i] = key; v[i] = val
-  }
-
-  pop(): number {
-    const k = this.k, v = this.v
-    const top = v[0]!, lk = k.pop()!, lv = v.pop()!
-    const n = k.length
-    if (n > 0) {
-      let i = 0
-      for (;;) {
-        let c = 2 * i + 1
-        if (c >= n) break
-        if (c + 1 < n && k[c + 1]! < k[c]!) c++
-        if (k[c]! >= lk) break
-        k[i] = k[c]!; v[i] = v[c]!; i = c
-      }
-      k[i] = lk; v[i] = lv
-    }
-    return top
-  }
-}
+const BAND_SLACK = 0
 
 /** Plans the moves; may trade sites between moves at equal cost, so read the final pairs from tasks. */
 export function planMoves(inp: PlanInput): PlannedMove[] {
@@ -178,8 +148,12 @@ export function planMoves(inp: PlanInput): PlannedMove[] {
     for (const j of best.A) { succA[j]!.push(k); indegA[k] = indegA[k]! + 1 }
     for (const j of best.B) { succB[k]!.push(j); indegB[j] = indegB[j]! + 1 }
   }
+  inheritPriority(key, succA, succB)
 
   const state = new Uint8Array(T)
+  // Positions vacated or filled so far (x, y pairs), and per move where a failed detour search stood.
+  const changed: number[] = []
+  const failAt = new Int32Array(T).fill(-1), failBox = new Float64Array(6 * T)
   const attempts = new Int32Array(T)
   const moves: PlannedMove[] = []
   const ready = new KeyHeap()
@@ -202,11 +176,13 @@ export function planMoves(inp: PlanInput): PlannedMove[] {
   const commit = (k: number, path: Point[], kind: MoveKind, detour: boolean, phase: PlannedMove['phase']) => {
     const t = tasks[k]!, s = sites[t.site]!
     moves.push({ atom: t.atom, site: t.site, path, kind, detour, phase })
+    changed.push(occ.x(t.atom), occ.y(t.atom), s[0], s[1])
     occ.move(t.atom, s[0], s[1])
     if (state[k] === PENDING) startGrid.remove(k)
     siteGrid.remove(k)
     state[k] = DONE
     done++
+    openInBand[band[k]!]!--
     release(k)
   }
 
@@ -223,8 +199,26 @@ export function planMoves(inp: PlanInput): PlannedMove[] {
   const tryExec = (k: number, phase: PlannedMove['phase']): boolean => {
     if (tryDirect(k, phase) === -1) return true
     const t = tasks[k]!, s = sites[t.site]!
-    const d = findDetour(occ, metric, t.atom, [occ.x(t.atom), occ.y(t.atom)], [s[0], s[1]])
+    const px = occ.x(t.atom), py = occ.y(t.atom)
+    if (!worthRetry(k, px, py)) return false
+    const d = findDetour(occ, metric, t.atom, [px, py], [s[0], s[1]])
     if (d) { commit(k, d, state[k] === PARKED ? 'final-from-parking' : 'detour', true, phase); return true }
+    // The search is deterministic: repeat it only once an atom has come or gone near this move.
+    const margin = detourMargin(c, Math.hypot(s[0] - px, s[1] - py)) + c
+    failAt[k] = changed.length
+    failBox.set([Math.min(px, s[0]) - margin, Math.max(px, s[0]) + margin, Math.min(py, s[1]) - margin, Math.max(py, s[1]) + margin, px, py], 6 * k)
+    return false
+  }
+  function worthRetry(k: number, px: number, py: number): boolean {
+    const f = failAt[k]!
+    if (f < 0) return true
+    const o = 6 * k
+    if (failBox[o + 4] !== px || failBox[o + 5] !== py) return true
+    for (let i = f; i < changed.length; i += 2) {
+      const x = changed[i]!, y = changed[i + 1]!
+      if (x >= failBox[o]! && x <= failBox[o + 1]! && y >= failBox[o + 2]! && y <= failBox[o + 3]!) return true
+    }
+    failAt[k] = changed.length
     return false
   }
 
@@ -239,6 +233,7 @@ export function planMoves(inp: PlanInput): PlannedMove[] {
     if (!path) return false
     const end = path[path.length - 1]!
     moves.push({ atom: t.atom, site: t.site, path, kind: 'parking', detour: false, phase: 'park' })
+    changed.push(from[0], from[1], end[0], end[1])
     occ.move(t.atom, end[0], end[1])
     startGrid.remove(j)
     state[j] = PARKED
@@ -248,12 +243,25 @@ export function planMoves(inp: PlanInput): PlannedMove[] {
     return true
   }
 
+  // Moves may run ahead of the innermost unfinished band by at most BAND_SLACK bands: a move left
+  // waiting (a cycle, a blocked path) is resolved while the structure around it is still open,
+  // instead of after it has been walled in.
+  const band = Int32Array.from(key, x => Math.floor(x))
+  let maxBand = 0
+  for (let k = 0; k < T; k++) if (band[k]! > maxBand) maxBand = band[k]!
+  const openInBand = new Int32Array(maxBand + 2)
+  for (let k = 0; k < T; k++) openInBand[band[k]!]!++
+  let lowBand = 0, extra = 0
+  const inner = () => {
+    while (lowBand <= maxBand && openInBand[lowBand] === 0) { lowBand++; extra = 0 }
+    return lowBand + BAND_SLACK + extra
+  }
   let deferred: number[] = []
   const parked: number[] = []
   let iter = 0
   while (done < T) {
     if ((++iter & 15) === 0) clock?.check()
-    if (ready.size > 0) {
+    if (ready.size > 0 && Math.floor(ready.topKey) <= inner()) {
       const k = ready.pop()
       if (state[k] !== PENDING) continue
       if (!tryExec(k, 'ready')) { attempts[k] = attempts[k]! + 1; deferred.push(k) }
@@ -271,7 +279,13 @@ export function planMoves(inp: PlanInput): PlannedMove[] {
     if (progress) continue
     // A cycle (or only stuck moves) remains: try the moves whose waiting is least costly to skip.
     const pending: number[] = []
-    for (let k = 0; k < T; k++) if (state[k] === PENDING) pending.push(k)
+    const lim = inner()
+    for (let k = 0; k < T; k++) if (state[k] === PENDING && band[k]! <= lim) pending.push(k)
+    if (pending.length === 0 && lim < maxBand) {
+      // Only parked atoms wait in the inner bands: let the build go on outwards.
+      extra++
+      continue
+    }
     if (pending.length === 0) {
       // Only parked atoms are left and none can reach its site: finish them as well as possible.
       for (const k of parked) if (state[k] === PARKED) forceCommit(k)

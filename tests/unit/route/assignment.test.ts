@@ -125,3 +125,58 @@ describe('sparse solver against munkres (independent npm package) on larger case
     }
   })
 })
+
+describe('tie-break among optimal assignments (least Σ length², Σ length unchanged)', () => {
+  it('atoms at x = 0…4 and sites at x = 1…5: every injective map onto the sites that is monotone costs 5; the chain of unit hops (Σd² = 5) wins over the long jump 0 → 5 (Σd² = 25)', () => {
+    // Closed form on a line: Σ|a_i − s_π(i)| ≥ Σ(s_i − a_i) = 5 for every π, with Σd² minimal for π = id.
+    const atoms: P[] = [0, 1, 2, 3, 4].map(x => [x, 0])
+    const sites: P[] = [1, 2, 3, 4, 5].map(x => [x, 0])
+    const r = solveAssignment({ atoms, sites, atomIds: [0, 1, 2, 3, 4], siteIds: [0, 1, 2, 3, 4], metric: makeMetric(), cost: 'distance', zones: [], mode: 'sparse' })
+    expect(r.cost).toBeCloseTo(5, 12)
+    expect(r.exact).toBe(true)
+    expect([...r.pairs].sort((x, y) => x[0] - y[0])).toEqual([[0, 0], [1, 1], [2, 2], [3, 3], [4, 4]])
+  })
+  it('lattice points under the hexagonal norm (many ties): Σd equals brute force, and Σd² is the least among the brute-force optima', () => {
+    const R = rng(77)
+    const metric = makeMetric(HEX)
+    const snap = (p: P): P => { const h = (HEX.a1[0] * Math.sqrt(3)) / 2, j = Math.round(p[1] / h), i = Math.round((p[0] + (j * HEX.a1[0]) / 2) / HEX.a1[0]); return [i * HEX.a1[0] - (j * HEX.a1[0]) / 2, j * h] }
+    for (let rep = 0; rep < 12; rep++) {
+      const nA = 5 + (rep % 3), nS = 5
+      const atoms = scatter(R, nA, [0, 2, 0, 2]).map(snap), sites = scatter(R, nS, [0, 2, 0, 2]).map(snap)
+      const d = (a: number, s: number) => metric.norm(sites[s]![0] - atoms[a]![0], sites[s]![1] - atoms[a]![1])
+      // Brute force over all injective maps site → atom: the optimum of Σd, then the least Σd² among maps within 1e-9 of it.
+      let best = Infinity, best2 = Infinity
+      const used = new Array<boolean>(nA).fill(false)
+      const go = (s: number, acc: number, acc2: number) => {
+        if (s === nS) {
+          if (acc < best - 1e-9) { best = acc; best2 = acc2 }
+          else if (acc <= best + 1e-9) best2 = Math.min(best2, acc2)
+          return
+        }
+        for (let a = 0; a < nA; a++) {
+          if (used[a]) continue
+          used[a] = true
+          go(s + 1, acc + d(a, s), acc2 + d(a, s) ** 2)
+          used[a] = false
+        }
+      }
+      go(0, 0, 0)
+      const r = solveAssignment({ atoms, sites, atomIds: atoms.map((_, i) => i), siteIds: sites.map((_, i) => i), metric, cost: 'distance', zones: [], mode: 'sparse' })
+      const total = r.pairs.reduce((t, [a, s]) => t + d(a, s), 0)
+      const total2 = r.pairs.reduce((t, [a, s]) => t + d(a, s) ** 2, 0)
+      expect(total).toBeCloseTo(best, 9)
+      expect(total2).toBeCloseTo(best2, 9)
+    }
+  })
+  it('square 900 × 900 (warm start from the stratified subsample) with tie-break: same Σd as munkres, certified', () => {
+    const R = rng(31)
+    const atoms = scatter(R, 900, [0, 30, 0, 30]), sites = scatter(R, 900, [5, 35, 0, 30])
+    const base = { atoms, sites, atomIds: atoms.map((_, i) => i), siteIds: sites.map((_, i) => i), metric: makeMetric(HEX), cost: 'distance' as const, zones: [] }
+    const dense = solveAssignment({ ...base, mode: 'dense' }), sparse = solveAssignment({ ...base, mode: 'sparse' })
+    const d = (a: number, s: number) => base.metric.norm(sites[s]![0] - atoms[a]![0], sites[s]![1] - atoms[a]![1])
+    expect(sparse.pairs.reduce((t, [a, s]) => t + d(a, s), 0)).toBeCloseTo(dense.cost, 6)
+    expect(sparse.exact).toBe(true)
+    expect(sparse.lowerBound).toBeCloseTo(dense.cost, 6)
+    expect(new Set(sparse.pairs.map(p => p[0])).size).toBe(900)
+  })
+})
