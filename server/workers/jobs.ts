@@ -3,18 +3,19 @@
 import { isInputError } from '../../shared/errors'
 import { checkAsBuilt } from '../../shared/compare'
 import { computeBox, computeCorral, computeScattering } from '../../shared/waves'
-import { RouteDeadlineError, solveRoute } from '../../shared/route'
+import { RouteDeadlineError, replan, solveRoute, type ReplanInput } from '../../shared/route'
 import { detectAdatoms, parseDetectInput } from '../../shared/scan'
 import { fitLattice, parseLatticeFitInput } from '../../shared/lattice'
 import type { RouteOptions } from '../../shared/route/types'
 
-export type JobKind = 'route' | 'corral' | 'scattering' | 'chain' | 'check' | 'detect' | 'detect-grid' | 'lattice-fit'
+export type JobKind = 'route' | 'replan' | 'corral' | 'scattering' | 'chain' | 'check' | 'detect' | 'detect-grid' | 'lattice-fit'
 export interface JobRequest { kind: JobKind, input: unknown, options?: Omit<RouteOptions, 'onProgress'> }
 export type JobFailure = { field: string, message: string, kind: 'input' } | { message: string, kind: 'deadline' | 'crash' }
 
 export function runJob(req: JobRequest, progress: (fraction: number, stage: string) => void): unknown {
   switch (req.kind) {
     case 'route': return solveRoute(req.input, { ...req.options, onProgress: progress })
+    case 'replan': return replan(req.input as ReplanInput, { ...req.options, onProgress: progress })
     case 'corral': return computeCorral(req.input)
     case 'scattering': return computeScattering(req.input)
     case 'chain': return computeBox(req.input)
