@@ -5,6 +5,7 @@ import type { StepState } from '#shared/types/workspace'
 export function useStepStates() {
   const scan = useScanStore()
   const marks = useMarksStore()
+  const night = useNightStore()
   return computed<StepState[]>(() => [
     scan.meta
       ? { id: 'scan', label: 'Scan', status: 'done', detail: `${scan.meta.size_x_nm} × ${scan.meta.size_y_nm} nm · ${scan.meta.filename}` }
@@ -18,7 +19,7 @@ export function useStepStates() {
     { id: 'blueprint', label: 'Blueprint', status: 'empty', detail: 'no shapes yet' },
     { id: 'route', label: 'Route', status: 'empty', detail: 'needs marks and a blueprint' },
     { id: 'waves', label: 'Wave preview', status: 'empty', detail: 'needs a blueprint' },
-    { id: 'logbook', label: 'Night', status: 'empty', detail: 'needs a route' },
-    { id: 'check', label: 'As-built check', status: 'empty', detail: 'needs an after-scan' },
+    night.logbookStep,
+    night.checkStep,
   ])
 }

@@ -37,7 +37,7 @@ function line(img: PNG, a: Pt, b: Pt, c: [number, number, number]) {
   for (let i = 0; i <= n; i++) plot(img, a[0] + ((b[0] - a[0]) * i) / Math.max(1, n), a[1] + ((b[1] - a[1]) * i) / Math.max(1, n), c)
 }
 
-export async function renderCheckPicture(scan: ScanRow, check: CheckResult): Promise<Buffer> {
+export async function drawCheckPng(scan: ScanRow, check: CheckResult): Promise<Buffer> {
   const grid = levelLinesMedianDiff(subtractPlane(await loadGrid(scan)).grid).grid
   const { lo, hi } = percentileRange(grid.data, 0.5, 99.5)
   const rgba = renderRGBA(grid, { lo, hi: hi > lo ? hi : lo + 1e-6 })

@@ -22,7 +22,7 @@ export async function mailNightSummary(event: H3Event, db: Db, loaded: LoadedRun
   let picture = opts.picture
   if (!picture && check) {
     const scan = await db.query.scans.findFirst({ where: eq(schema.scans.id, check.scan_id) })
-    picture = scan ? await renderCheckPicture(scan, check.result as never).catch(() => undefined) : undefined
+    picture = scan ? await drawCheckPng(scan, check.result as never).catch(() => undefined) : undefined
   }
   const done = Object.entries(state.counts).filter(([o]) => o !== 'stayed' && o !== 'tip-change').reduce((s, [, n]) => s + n, 0)
   const outcomes = OUTCOMES.map(o => `${LABEL[o]} ${state.counts[o]}`).join(' · ')

@@ -88,7 +88,8 @@ export async function run(): Promise<void> {
     let r: RouteOutput | undefined
     try {
       await bench(`10 000-site honeycomb from ${atoms.length} atoms`, () => { r = solveRoute(prob, { deadline_ms }) }, { runs: 1, warmup: 0, target_ms: 10000, note: () => routeNote(r!) })
-    } catch (e) {
+    }
+    catch (e) {
       if (!(e instanceof RouteDeadlineError)) throw e
       console.log(`10 000-site honeycomb: did not finish within deadline_ms = ${deadline_ms} (${e.message})`)
     }

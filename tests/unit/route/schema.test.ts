@@ -4,7 +4,8 @@ import { isInputError } from '../../../shared/errors'
 import { solveRoute, validateRouteInput, MAX_ROUTE_POINTS } from '../../../shared/route/index'
 
 function fieldOf(raw: unknown): string {
-  try { validateRouteInput(raw) } catch (e) { if (isInputError(e)) return e.field; throw e }
+  try { validateRouteInput(raw) }
+  catch (e) { if (isInputError(e)) return e.field; throw e }
   return 'accepted'
 }
 
@@ -46,7 +47,8 @@ describe('validateRouteInput', () => {
   })
   it('solveRoute validates too, and checks option indices', () => {
     expect(() => solveRoute({ ...ok, atoms: [] })).toThrowError(/at least one atom/)
-    try { solveRoute(ok, { locked: [9] }) } catch (e) { expect(isInputError(e) && e.field).toBe('locked.0') }
+    try { solveRoute(ok, { locked: [9] }) }
+    catch (e) { expect(isInputError(e) && e.field).toBe('locked.0') }
     expect(() => solveRoute(ok, { locked: [9] })).toThrow()
   })
 })
