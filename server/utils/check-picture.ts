@@ -41,7 +41,8 @@ export async function drawCheckPng(scan: ScanRow, check: CheckResult): Promise<B
   const grid = levelLinesMedianDiff(subtractPlane(await loadGrid(scan)).grid).grid
   const { lo, hi } = percentileRange(grid.data, 0.5, 99.5)
   const rgba = renderRGBA(grid, { lo, hi: hi > lo ? hi : lo + 1e-6 })
-  const k = Math.max(1, Math.min(8, Math.floor(640 / Math.max(grid.width, grid.height))))
+  // Whole-pixel enlargement to about 640 px (small scans), never a reduction.
+  const k = Math.max(1, Math.round(640 / Math.max(grid.width, grid.height)))
   const img = new PNG({ width: grid.width * k, height: grid.height * k })
   for (let y = 0; y < img.height; y++) {
     for (let x = 0; x < img.width; x++) {

@@ -22,8 +22,9 @@ export async function runView(db: Db, loaded: LoadedRun, role: string) {
   const names = await userNames(db, [run.started_by, ...(run.closed_by ? [run.closed_by] : []), ...entries.map(e => e.author_id), ...[...routes.values()].map(r => r.created_by)])
   const checks = await runChecks(db, run.id)
   const perMove = result.time?.per_move_s ?? []
+  const done = new Set(state.done_moves)
   const remaining = snap.moves.map((m, i) => ({ i, length_nm: m.length_nm, estimate_s: perMove[i] ?? m.estimate_s ?? 0 }))
-    .filter(m => !state.done_moves.includes(m.i))
+    .filter(m => !done.has(m.i))
   const rates = await labRates(db, run.lab_id, sample?.id)
   return {
     role,

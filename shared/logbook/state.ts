@@ -60,10 +60,20 @@ export function deriveRunState(routes: ReadonlyMap<number, RouteSnap>, firstId: 
   const where = new Map<number, Point | null>()
   anchor.atoms.forEach((p, k) => where.set(anchor.atom_ids[k] ?? k, p))
   const holds = new Map<number, number>() // site → atom id
-  for (const [s, a] of anchor.placed) holds.set(s, anchor.atom_ids[a] ?? a)
-  const release = (atomId: number) => {
-    for (const [s, a] of holds) if (a === atomId) holds.delete(s)
+  const siteOf = new Map<number, number>() // atom id → site
+  const hold = (site: number, atomId: number) => {
+    const before = holds.get(site)
+    if (before !== undefined) siteOf.delete(before)
+    holds.set(site, atomId)
+    siteOf.set(atomId, site)
   }
+  const release = (atomId: number) => {
+    const site = siteOf.get(atomId)
+    if (site === undefined) return
+    holds.delete(site)
+    siteOf.delete(atomId)
+  }
+  for (const [s, a] of anchor.placed) hold(s, anchor.atom_ids[a] ?? a)
 
   const counts = Object.fromEntries(OUTCOMES.map(o => [o, 0])) as Record<Outcome, number>
   const attempts = current.moves.map(() => 0)
@@ -84,7 +94,7 @@ export function deriveRunState(routes: ReadonlyMap<number, RouteSnap>, firstId: 
     if (e.outcome === 'placed') {
       release(atomId)
       where.set(atomId, move.path[move.path.length - 1] ?? route.sites[move.site]!)
-      if (move.kind !== 'parking') holds.set(move.site, atomId)
+      if (move.kind !== 'parking') hold(move.site, atomId)
     }
     else if (e.outcome === 'off-site') {
       release(atomId)

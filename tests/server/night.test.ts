@@ -275,4 +275,27 @@ describe('closing a run', () => {
     expect(after.body.message).toMatch(/closed/)
     expect((await owner.post(`/api/runs/${runId}/close`, {})).status).toBe(409)
   })
+  it('attaches the as-built overlay: the client\'s PNG as sent, else one drawn by the server', async () => {
+    const after = await makeScan(owner, lab, [sitePos(0, 0), sitePos(4, 0), ATOMS[2]!], 'after')
+    const outbox = async (runId: number) => (await (await fetch(`${app.url}/api/dev/outbox`)).json() as any[]).find(m => m.text.includes(`Run ${runId}:`))
+    const drawn = await startRun()
+    await log(owner, drawn, { move_index: 0, outcome: 'placed' })
+    const check = await owner.post(`/api/blueprints/${blueprintId}/checks`, { scan_id: after, run_id: drawn })
+    expect(check.status).toBe(201)
+    // Hand count: sites 0 and 1 hold an atom, site 2 does not (its atom still sits 3 rows away).
+    expect(check.body.fidelity).toBeCloseTo(2 / 3, 12)
+    expect((await owner.post(`/api/runs/${drawn}/close`, {})).body.mail.to).toBe(3)
+    const m1 = await outbox(drawn)
+    expect(m1.text).toMatch(/fidelity 66\.7 % \(2 of 3 sites placed\)/)
+    expect(m1.attachments).toEqual([expect.objectContaining({ filename: `run-${drawn}-overlay.png`, contentType: 'image/png' })])
+    expect(m1.attachments[0].size).toBeGreaterThan(1000)
+    const sent = await startRun()
+    // A 1 × 1 PNG (the smallest valid one), as the client would send its own rendering.
+    const png = 'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg=='
+    expect((await owner.post(`/api/runs/${sent}/close`, { picture_png: `data:image/png;base64,${png}` })).status).toBe(200)
+    const m2 = await outbox(sent)
+    expect(m2.attachments[0].size).toBe(Buffer.from(png, 'base64').length)
+    const list = (await owner.get(`/api/labs/${lab.labId}/runs`)).body
+    expect(list.find((r: any) => r.id === drawn).fidelity).toBeCloseTo(2 / 3, 12)
+  })
 })
