@@ -9,6 +9,7 @@ export function useStepStates() {
   const blueprint = useBlueprintStore()
   const waves = useWavesStore()
   const route = useRouteStepState()
+  const night = useNightStore()
   return computed<StepState[]>(() => [
     scan.meta
       ? { id: 'scan', label: 'Scan', status: 'done', detail: `${scan.meta.size_x_nm} × ${scan.meta.size_y_nm} nm · ${scan.meta.filename}` }
@@ -22,8 +23,8 @@ export function useStepStates() {
     blueprintStep(blueprint, lattice.fit !== null),
     route.value,
     wavesState(blueprint.sites.length, waves),
-    { id: 'logbook', label: 'Night', status: 'empty', detail: 'needs a route' },
-    { id: 'check', label: 'As-built check', status: 'empty', detail: 'needs an after-scan' },
+    night.logbookStep,
+    night.checkStep,
   ])
 }
 

@@ -2,7 +2,7 @@
 // how strongly, the active tool, and the cursor read-out. Client state only.
 import { defineStore } from 'pinia'
 
-export type LayerId = 'scan' | 'marks' | 'sites' | 'blueprint' | 'route' | 'waves'
+export type LayerId = 'scan' | 'marks' | 'sites' | 'blueprint' | 'route' | 'waves' | 'check'
 export type ToolId = 'pan' | 'select' | 'add' | 'erase' | 'box' | 'profile' | 'place'
 
 export interface LayerState { visible: boolean, opacity: number }
@@ -14,6 +14,7 @@ export const LAYER_LABELS: Record<LayerId, string> = {
   blueprint: 'Blueprint',
   route: 'Route',
   waves: 'Wave map',
+  check: 'As-built check',
 }
 
 export const useViewStore = defineStore('view', () => {
@@ -31,6 +32,7 @@ export const useViewStore = defineStore('view', () => {
     blueprint: { visible: true, opacity: 1 },
     route: { visible: true, opacity: 1 },
     waves: { visible: false, opacity: 0.7 },
+    check: { visible: true, opacity: 1 },
   })
 
   function toWorld(px: number, py: number): [number, number] {

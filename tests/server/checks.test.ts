@@ -1,0 +1,91 @@
+// As-built checks through the API of the built app, against hand-computed cases: a site with its
+// atom exactly on it, one displaced within the tolerance, one displaced beyond it (off-site, with
+// the offset), one missing, an extra atom, and the tolerance edge. Bad input: an after-scan with
+// no lattice fit, a blueprint of 0 sites, a scan of another lab.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { startApp, type RunningApp } from '../helpers/app'
+import { Client } from '../helpers/client'
+import { type Lab, makeBlueprint, makeLab, makeScan, sitePos } from '../helpers/plan'
+
+let app: RunningApp
+let c: Client
+let lab: Lab
+let blueprintId: number
+const SITES: [number, number][] = [[0, 0], [4, 0], [8, 0], [12, 0]]
+const shift = (p: [number, number], dx: number, dy = 0): [number, number] => [p[0] + dx, p[1] + dy]
+
+beforeAll(async () => {
+  app = await startApp()
+  c = new Client(app.url)
+  await c.register('checker@lab.test', 'Cleo Checker')
+  lab = await makeLab(c)
+  blueprintId = await makeBlueprint(c, lab, SITES)
+})
+afterAll(async () => {
+  await app?.stop()
+})
+
+const check = (body: Record<string, unknown>) => c.post(`/api/blueprints/${blueprintId}/checks`, body)
+
+describe('as-built check', () => {
+  it('sorts sites into placed, off-site (with the offset) and missing; RMS and fidelity by hand', async () => {
+    const found = [sitePos(0, 0), shift(sitePos(4, 0), 0.03, -0.04), shift(sitePos(8, 0), 0.3), [17, 17] as [number, number]]
+    const scanId = await makeScan(c, lab, found, 'after')
+    const res = await check({ scan_id: scanId })
+    expect(res.status).toBe(201)
+    const r = res.body.result
+    expect(r.site_status).toEqual(['placed', 'placed', 'off-site', 'missing'])
+    expect(r.placed).toEqual([0, 1])
+    expect(r.missing).toEqual([2, 3])
+    expect(r.extra).toEqual([2, 3])
+    expect(r.off_site).toHaveLength(1)
+    expect(r.off_site[0].site).toBe(2)
+    expect(r.off_site[0].offset[0]).toBeCloseTo(0.3, 9)
+    expect(r.off_site[0].offset[1]).toBeCloseTo(0, 9)
+    // Hand computation: deviations 0 and √(0.03² + 0.04²) = 0.05 nm; RMS = √((0 + 0.05²)/2).
+    expect(res.body.rms_nm).toBeCloseTo(Math.sqrt(0.0025 / 2), 9)
+    expect(res.body.fidelity).toBe(0.5)
+    expect(res.body.tolerance_nm).toBe(0.1)
+    expect(r.sites[1][0]).toBeCloseTo(sitePos(4, 0)[0], 9)
+    const list = await c.get(`/api/labs/${lab.labId}/checks?build=${lab.buildId}`)
+    expect(list.body.map((x: any) => x.id)).toContain(res.body.id)
+    expect((await c.get(`/api/checks/${res.body.id}`)).body.scan.purpose).toBe('after')
+  })
+
+  it('counts an atom exactly at the tolerance as placed, and just beyond it as off-site', async () => {
+    const scanId = await makeScan(c, lab, [shift(sitePos(0, 0), 0.1), sitePos(4, 0), sitePos(8, 0), sitePos(12, 0)], 'after')
+    const at = await check({ scan_id: scanId, tolerance_nm: 0.1 })
+    expect(at.body.result.site_status[0]).toBe('placed')
+    expect(at.body.fidelity).toBe(1)
+    // RMS by hand: one deviation of 0.1 nm and three of 0 → √(0.01/4) = 0.05 nm.
+    expect(at.body.rms_nm).toBeCloseTo(0.05, 9)
+    const below = await check({ scan_id: scanId, tolerance_nm: 0.099 })
+    expect(below.body.result.site_status[0]).toBe('off-site')
+    expect(below.body.fidelity).toBe(0.75)
+  })
+
+  it('refuses an after-scan with no lattice fit, a blueprint with 0 sites, and scans it cannot see', async () => {
+    const before = (await c.get(`/api/labs/${lab.labId}/checks`)).body.length
+    const noFit = await makeScan(c, lab, [sitePos(0, 0)], 'after', false)
+    const res = await check({ scan_id: noFit })
+    expect(res.status).toBe(400)
+    expect(res.body.message).toMatch(/after-scan has no lattice fit/)
+    expect(res.body.data.field).toBe('scan_id')
+    // A blueprint of 0 sites cannot even be saved; the stateless check refuses 0 sites as well.
+    const empty = await c.post(`/api/labs/${lab.labId}/builds/${lab.buildId}/blueprints`, { name: 'Nothing', surface: 'Ag(111)', site: 'fcc', shapes: [{ type: 'sites', sites: [] }] })
+    expect(empty.status).toBe(400)
+    expect(empty.body.message).toMatch(/no sites/)
+    const zero = await c.post('/api/compute/check', { sites: [], found: [[1, 1]] })
+    expect(zero.status).toBe(400)
+    expect(zero.body.message).toMatch(/0 sites/)
+    const other = new Client(app.url)
+    await other.register('else@other.test')
+    const otherLab = await makeLab(other, 'Other lab')
+    const foreign = await makeScan(other, otherLab, [sitePos(0, 0)], 'after')
+    expect((await check({ scan_id: foreign })).status).toBe(404)
+    expect((await other.post(`/api/blueprints/${blueprintId}/checks`, { scan_id: foreign })).status).toBe(404)
+    expect((await check({})).body.data.field).toBe('scan_id')
+    expect((await check({ scan_id: noFit, tolerance_nm: -1 })).body.data.field).toBe('tolerance_nm')
+    expect((await c.get(`/api/labs/${lab.labId}/checks`)).body.length).toBe(before)
+  })
+})
