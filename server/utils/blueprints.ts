@@ -16,7 +16,7 @@ export async function blueprintForCaller(event: H3Event, role: Role) {
   const db = await useDb()
   const blueprint = await db.query.blueprints.findFirst({ where: eq(schema.blueprints.id, id) })
   if (!blueprint) throw createError({ statusCode: 404, message: 'No such blueprint' })
-  const access = await requireLabRole(event, blueprint.lab_id, role)
+  const access = await requireRowLab(event, blueprint.lab_id, role, 'blueprint')
   return { db, blueprint, access }
 }
 

@@ -33,7 +33,7 @@ export async function labRates(db: Db, labId: number, sampleId?: number): Promis
     length_nm: sql<number | null>`json_extract(${r.result}, ${move} || '.length_nm')`,
     p0: sql<string | null>`json_extract(${r.result}, ${move} || '.path[0]')`,
     p1: sql<string | null>`json_extract(${r.result}, ${move} || '.path[#-1]')`,
-    lattice: sql<string | null>`coalesce(json_extract(${r.options}, '$.input.lattice'), json_extract(${r.options}, '$.lattice'))`,
+    lattice: sql<string | null>`coalesce(json_extract(${r.options}, '$.input.lattice'), json_extract(${r.result}, '$.lattice'), json_extract(${r.options}, '$.lattice'))`,
   }).from(e)
     .innerJoin(schema.buildRuns, eq(schema.buildRuns.id, e.run_id))
     .innerJoin(r, eq(r.id, e.route_id))

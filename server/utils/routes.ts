@@ -25,7 +25,7 @@ export async function routeForCaller(event: H3Event, role: Role) {
   const db = await useDb()
   const route = await db.query.routes.findFirst({ where: eq(schema.routes.id, id) })
   if (!route) throw createError({ statusCode: 404, message: 'No such route' })
-  const access = await requireLabRole(event, route.lab_id, role)
+  const access = await requireRowLab(event, route.lab_id, role, 'route')
   return { db, route, access }
 }
 

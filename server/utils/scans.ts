@@ -13,7 +13,7 @@ export async function scanForCaller(event: H3Event, role: Role) {
   const db = await useDb()
   const scan = await db.query.scans.findFirst({ where: eq(schema.scans.id, id) })
   if (!scan) throw createError({ statusCode: 404, message: 'No such scan' })
-  const access = await requireLabRole(event, scan.lab_id, role)
+  const access = await requireRowLab(event, scan.lab_id, role, 'scan')
   return { db, scan, access }
 }
 
