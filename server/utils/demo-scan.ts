@@ -29,3 +29,14 @@ export function demoTopograph() {
   const fit = fitLattice({ surface: 'Ag(111)', site: 'fcc', marks: marks.map(a => [a.x_nm, a.y_nm]), affine: true })
   return { scan, atoms, marks, fit, size_nm }
 }
+
+/** The morning after-scan of the demo: the adatoms where the night left them, imaged the same way. */
+export function demoAfterScan(positions: [number, number][], size_nm: number) {
+  const atoms = positions.map(([x, y], k) => ({ x_nm: x, y_nm: y, height_nm: 0.075 + 0.01 * ((k * 7919) % 11) / 11 }))
+  const scan = syntheticScan({
+    width: 512, height: 512, pixel_nm: size_nm / 512, atoms, fwhm_nm: 0.85,
+    noise_nm: 0.003, tilt: { dz_dx: -0.003, dz_dy: 0.002 }, line_offset_nm: 0.006, seed: 8,
+  })
+  const fit = fitLattice({ surface: 'Ag(111)', site: 'fcc', marks: positions, affine: true })
+  return { scan, atoms, fit }
+}

@@ -18,3 +18,14 @@ export function handLattice(body: { surface: string, site: string, a1: [number, 
     residual_nm: null, outliers: [],
   }
 }
+
+/** The same lattice with its origin moved by whole lattice vectors to the site nearest `near`. */
+export function anchorOrigin<T extends { a1: [number, number], a2: [number, number], origin: [number, number] }>(fit: T, near: [number, number]): T {
+  const { a1, a2, origin } = fit
+  const det = a1[0] * a2[1] - a1[1] * a2[0]
+  if (!(Math.abs(det) > 1e-12)) return fit
+  const dx = near[0] - origin[0], dy = near[1] - origin[1]
+  const i = Math.round((dx * a2[1] - dy * a2[0]) / det)
+  const j = Math.round((a1[0] * dy - a1[1] * dx) / det)
+  return { ...fit, origin: [origin[0] + i * a1[0] + j * a2[0], origin[1] + i * a1[1] + j * a2[1]] }
+}

@@ -8,10 +8,8 @@ import type { Db } from './db'
 // points are read inside SQLite (json_extract), so that a run page polling every few seconds does
 // not pull every route's whole move list into the server.
 //
-// Wiring into route saving: after a route is solved, call
-//   const rates = await labRates(db, labId, sampleId)
-//   const forecast = forecastMoves(result.moves.map((m, i) => ({ length_nm: m.length_nm, estimate_s: result.time.per_move_s[i] })), rates)
-// and return `forecast` beside the route (expected_placed, expected_s; null until enough attempts).
+// Saved routes carry a forecast from these rates whenever they are read (routeView in
+// server/utils/routes.ts), so it improves as the lab logs more moves.
 
 type Pt = [number, number]
 const parse = <T>(v: unknown): T | null => {

@@ -1,6 +1,7 @@
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import { toScanFrame, type FitFrame } from '#shared/blueprint/frame'
+import { forecastMoves } from '#shared/logbook'
 import type { Role } from '#shared/roles'
 import { MAX_ROUTE_POINTS, validateRouteInput } from '#shared/route/schema'
 import type { Point, RouteOutput } from '#shared/route/types'
@@ -39,8 +40,12 @@ export interface PlanFromScan {
   fit: { id: number, version: number }
 }
 
-/** Atoms from a scan's latest marks, sites from the blueprint through the scan's latest lattice fit. */
-export async function planFromScan(db: Db, blueprint: BlueprintRow, scanId: number): Promise<PlanFromScan> {
+/**
+ * Atoms from a scan's latest marks, sites from the blueprint through the scan's latest lattice fit
+ * (registered to `referenceScanId` when the plan was made on another scan: a re-plan from a newer
+ * scan keeps the structure where it was being built).
+ */
+export async function planFromScan(db: Db, blueprint: BlueprintRow, scanId: number, referenceScanId?: number | null): Promise<PlanFromScan> {
   const scan = await db.query.scans.findFirst({ where: eq(schema.scans.id, scanId) })
   if (!scan || scan.lab_id !== blueprint.lab_id) throw createError({ statusCode: 404, message: 'scan_id: no such scan in this lab', data: { field: 'scan_id' } })
   if (scan.sample_id !== blueprint.sample_id) throw bad('scan_id', `scan ${scan.id} is of another sample than the blueprint`)
@@ -57,7 +62,9 @@ export async function planFromScan(db: Db, blueprint: BlueprintRow, scanId: numb
     throw bad('marks', `${marks.count} marks and ${expanded.sites.length} sites exceed the route limit of ${MAX_ROUTE_POINTS} atoms + sites`)
   }
   const frame = fit.result as unknown as FitFrame
-  const sites = await compute400(() => toScanFrame(expanded.sites, frame)) as Point[]
+  const sites = referenceScanId && referenceScanId !== scan.id
+    ? (await registeredSitesOn(db, blueprint, scan, fit, referenceScanId)).sites
+    : await compute400(() => toScanFrame(expanded.sites, frame)) as Point[]
   return {
     scan,
     marksVersion: marks.version,
@@ -144,11 +151,17 @@ export async function solveAndSave(event: H3Event, db: Db, job: SolveJob) {
   return stream.send()
 }
 
-/** A saved route with its blueprint version and author, as the API returns it. */
+/**
+ * A saved route with its blueprint version and author, as the API returns it, and a forecast
+ * from the lab's logged success rates on this sample (null figures until enough moves exist):
+ * the expected number of placed atoms and the time with retries.
+ */
 export async function routeView(db: Db, row: RouteDbRow) {
   const [bp, author] = await Promise.all([
-    db.query.blueprints.findFirst({ where: eq(schema.blueprints.id, row.blueprint_id), columns: { id: true, lineage: true, version: true, name: true } }),
+    db.query.blueprints.findFirst({ where: eq(schema.blueprints.id, row.blueprint_id), columns: { id: true, lineage: true, version: true, name: true, sample_id: true } }),
     db.query.users.findFirst({ where: eq(schema.users.id, row.created_by), columns: { name: true } }),
   ])
-  return { ...row, blueprint: bp ?? null, author: author?.name ?? null }
+  const moves = ((row.result as { moves?: { length_nm: number, estimate_s?: number }[] }).moves ?? [])
+  const forecast = forecastMoves(moves, await labRates(db, row.lab_id, bp?.sample_id))
+  return { ...row, blueprint: bp ?? null, author: author?.name ?? null, forecast }
 }

@@ -22,7 +22,7 @@ async function fromScan(db: Db, loaded: LoadedRun, scanId: number, tolerance_nm:
   const fit = await requireFit(db, scan, 'the newer scan')
   const marks = await latestMarks(db, scan.id)
   if (!marks || marks.count === 0) throw createError({ statusCode: 400, message: 'scan_id: the newer scan has no marks: detect the adatoms on it first', data: { field: 'scan_id' } })
-  const sites = await blueprintSitesOn(blueprint, fit)
+  const { sites } = await registeredSitesOn(db, blueprint, scan, fit, current.scan_id)
   const atoms = marks.marks.map(m => [m.x_nm, m.y_nm] as Pt)
   // Sites that already hold an atom within the tolerance stay as they are.
   const check = await runCompute<CheckOutput>({ kind: 'check', input: { sites, found: atoms, tolerance_nm } })

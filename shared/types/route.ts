@@ -45,6 +45,8 @@ export interface RouteRow {
   created_at: string
   author: string | null
   blueprint: { id: number, lineage: number, version: number, name: string }
+  /** From the lab's logged success rates on this sample; figures null until enough moves exist. */
+  forecast?: { enough: boolean, based_on_attempts: number, moves: number, expected_placed: number | null, planned_s: number, expected_s: number | null }
 }
 
 /** One line of GET /api/blueprints/:id/routes (no paths: open the route for those). */

@@ -177,3 +177,24 @@ describe('viewers', () => {
     expect((await c.get(`/api/scans/${scanId}/lattice-fits`)).body).toHaveLength(3)
   })
 })
+
+describe('refitting keeps the blueprint on its atoms', () => {
+  it('anchors a refit to the previous origin, whatever marks were added', async () => {
+    const c2 = new Client(app.url)
+    await c2.register('refit@lab.test')
+    const lab = (await c2.post('/api/labs', { name: 'Refit lab' })).body.id
+    const sample = (await c2.post(`/api/labs/${lab}/samples`, { name: 'Ag', surface: 'Ag(111)', adsorbate: 'Co', temperature_K: 5 })).body
+    const scan = (await c2.upload(`/api/labs/${lab}/samples/${sample.id}/scans`, { name: 'f.csv', data: '0,0\n0,0\n' }, { size_x_nm: 30, size_y_nm: 30 })).body.id
+    // Marks on an unrotated Ag(111) lattice (nn = 0.409/√2 nm, Ashcroft & Mermin Table 4.3).
+    const a1 = [nn, 0], a2 = [-nn / 2, (nn * Math.sqrt(3)) / 2]
+    const at = (i: number, j: number) => ({ x_nm: 5 + i * a1[0]! + j * a2[0]!, y_nm: 5 + i * a1[1]! + j * a2[1]! })
+    const first = Array.from({ length: 25 }, (_, k) => at((k % 5) * 3, Math.floor(k / 5) * 3))
+    await c2.post(`/api/scans/${scan}/marks`, { marks: first, base_version: 0 })
+    const fit1 = (await c2.post(`/api/scans/${scan}/lattice-fit`, { mode: 'fit', surface: 'Ag(111)', site: 'fcc', affine: false })).body.result
+    // Many marks far to one side move the marks' centre by dozens of cells.
+    const more = Array.from({ length: 60 }, (_, k) => at(40 + (k % 10) * 3, 30 + Math.floor(k / 10) * 3))
+    await c2.post(`/api/scans/${scan}/marks`, { marks: [...first, ...more], base_version: 1 })
+    const fit2 = (await c2.post(`/api/scans/${scan}/lattice-fit`, { mode: 'fit', surface: 'Ag(111)', site: 'fcc', affine: false })).body.result
+    expect(Math.hypot(fit2.origin[0] - fit1.origin[0], fit2.origin[1] - fit1.origin[1])).toBeLessThan(0.01)
+  })
+})

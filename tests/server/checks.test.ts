@@ -89,3 +89,28 @@ describe('as-built check', () => {
     expect((await c.get(`/api/labs/${lab.labId}/checks`)).body.length).toBe(before)
   })
 })
+
+describe('after-scan registered to the planning scan', () => {
+  it('finds every site although the after-scan drifted and its fit chose another origin site', async () => {
+    // Hand-computed case: the after-scan drifted by (0.7, −0.4) nm and its lattice origin was put
+    // on site (2, 1) of the plan's lattice; the check must carry the blueprint back onto its atoms.
+    const lab2 = await makeLab(c, 'Drift lab')
+    const bp = await makeBlueprint(c, lab2, SITES)
+    const spectators: [number, number][] = [[1, 18], [18, 17], [17, 2], [3, 12], [12, 15]]
+    const movers: [number, number][] = [[2, 9], [6, 10], [10, 11], [14, 12]]
+    const plan = await makeScan(c, lab2, [...spectators, ...movers])
+    expect((await c.post(`/api/blueprints/${bp}/routes`, { scan_id: plan })).status).toBe(201)
+    const drift: [number, number] = [0.7, -0.4]
+    const moved = (p: [number, number]): [number, number] => [p[0] + drift[0], p[1] + drift[1]]
+    const after = [...spectators.map(moved), ...SITES.map(([i, j]) => moved(sitePos(i, j)))]
+    const up = await c.upload(`/api/labs/${lab2.labId}/samples/${lab2.sampleId}/scans`, { name: 'after.csv', data: '0,0\n0,0\n' }, { size_x_nm: 20, size_y_nm: 20, build_id: lab2.buildId, purpose: 'after' })
+    await c.post(`/api/scans/${up.body.id}/marks`, { marks: after.map(([x_nm, y_nm]) => ({ x_nm, y_nm })), base_version: 0 })
+    const origin = moved(sitePos(2, 1))
+    expect((await c.post(`/api/scans/${up.body.id}/lattice-fit`, { mode: 'hand', surface: 'Ag(111)', site: 'fcc', a1: sitePos(1, 0).map((v, k) => v - sitePos(0, 0)[k]!), a2: sitePos(0, 1).map((v, k) => v - sitePos(0, 0)[k]!), origin })).status).toBe(201)
+    const res = await c.post(`/api/blueprints/${bp}/checks`, { scan_id: up.body.id })
+    expect(res.status).toBe(201)
+    expect(res.body.fidelity).toBe(1)
+    expect(res.body.result.registration.shift).toEqual([-2, -1])
+    expect(res.body.result.registration.drift_nm[0]).toBeCloseTo(0.7, 3)
+  })
+})

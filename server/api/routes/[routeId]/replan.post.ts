@@ -23,7 +23,7 @@ export default defineEventHandler(async (event) => {
   let atoms: Point[], sites: Point[], siteKeys = prevResult.site_keys, lattice = prevResult.lattice
   let scanId = route.scan_id, marksVersion: number | null = null, fit = { id: prev.lattice_fit_id, version: prev.lattice_fit_version }
   if (body.scan_id !== undefined) {
-    const plan = await planFromScan(db, blueprint, body.scan_id)
+    const plan = await planFromScan(db, blueprint, body.scan_id, route.scan_id)
     ;({ atoms, sites, siteKeys, lattice } = plan)
     scanId = plan.scan.id
     marksVersion = plan.marksVersion

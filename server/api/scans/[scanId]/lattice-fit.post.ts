@@ -33,6 +33,13 @@ export default defineEventHandler(async (event) => {
     })
     row = { scan_id: scan.id, version, surface: result.surface, site: result.site, source: 'fit', locked: false, result: { ...result, marks_version: marks.version }, residual_nm: result.residual_nm, created_by: access.userId }
   }
+  // A fit fixes the lattice only up to a lattice translation (its origin is just a site near the
+  // marks' centre): keep the origin on the site nearest the previous version's origin, so a
+  // blueprint drawn on this scan stays on the same atoms. A lattice placed by hand keeps the
+  // origin it was given.
+  if (latest && body.mode === 'fit' && latest.surface === row.surface && latest.site === row.site) {
+    row.result = anchorOrigin(row.result as never, (latest.result as { origin: [number, number] }).origin)
+  }
   const [saved] = await db.insert(schema.latticeFits).values(row).returning()
   await audit(db, { labId: access.labId, userId: access.userId, action: `lattice.${body.mode}`, target: `scan:${scan.id}`, detail: { version } })
   setResponseStatus(event, 201)
