@@ -1,4 +1,4 @@
-// As-built check (DESIGN.md §4, POST /api/compute/check): blueprint sites against the adatoms
+// As-built check (POST /api/compute/check): blueprint sites against the adatoms
 // found in the after-scan by optimal one-to-one matching within a tolerance (matching.ts),
 // RMS deviation over the placed sites and fidelity = placed / sites.
 import { InputError } from '../errors'

@@ -7,7 +7,7 @@ const coord = z.number({ error: 'coordinates must be finite numbers (nm)' })
 const point = z.tuple([coord, coord], { error: 'must be a point [x, y] in nm' })
 
 /**
- * POST /api/compute/check (DESIGN.md §4), with one added optional field:
+ * POST /api/compute/check (API contract in the README), with one added optional field:
  *   near_nm   radius for the off-site search (default 0.5 nm): a missing site with an unmatched
  *             found atom within near_nm is reported in off_site with the offset.
  */

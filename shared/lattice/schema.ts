@@ -1,4 +1,4 @@
-// Input validation for POST /api/compute/lattice-fit (DESIGN.md §4), shared by server and client.
+// Input validation for POST /api/compute/lattice-fit (API contract in the README), shared by server and client.
 import { z } from 'zod'
 import { InputError } from '../errors'
 

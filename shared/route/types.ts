@@ -1,5 +1,5 @@
 // Types of the route solver: optimal atom-to-site assignment plus an ordered, clearance-keeping
-// move list (DESIGN.md §4, POST /api/compute/route). Plain arrays only, so that a route crosses a
+// move list (POST /api/compute/route). Plain arrays only, so that a route crosses a
 // worker thread or an HTTP body unchanged.
 
 export type Point = [number, number]

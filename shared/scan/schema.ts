@@ -1,4 +1,4 @@
-// Input schema of POST /api/compute/detect (DESIGN.md §4). The scalar fields go through zod;
+// Input schema of POST /api/compute/detect (API contract in the README). The scalar fields go through zod;
 // the height array (up to 8192² numbers) is checked by one plain loop inside the schema's
 // refinement, because a zod array of numbers costs several times more (figures in
 // tests/bench/scan.bench.ts). Every issue's path names the field, e.g. ['data', 1234].

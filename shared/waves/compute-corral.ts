@@ -1,4 +1,4 @@
-// POST /api/compute/corral (DESIGN.md §4): hard-wall circular corral levels, point spectrum and
+// POST /api/compute/corral (API contract in the README): hard-wall circular corral levels, point spectrum and
 // LDOS map, E_{m,n} = E0 + (ħ²/2m*)(j_{m,n}/R_eff)², LDOS = Σ|ψ|²·Lorentzian (see corral.ts).
 import { InputError } from '../errors'
 import { cleanDos2D_per_eVnm2 } from './constants'

@@ -3,7 +3,7 @@
 
 /** Reduced Planck constant, eV·s (exact in SI since 2019: h and e are fixed). */
 export const HBAR_eVs = 6.582119569e-16
-/** Electron rest mass, kg (CODATA 2018, 9.1093837015e-31; REFERENCES.md quotes 9.1093837e-31). */
+/** Electron rest mass, kg (CODATA 2018, 9.1093837015e-31; often quoted as 9.1093837e-31). */
 export const ELECTRON_MASS_kg = 9.1093837015e-31
 /** Elementary charge, C (exact in SI since 2019); converts J to eV. */
 export const ELEMENTARY_CHARGE_C = 1.602176634e-19

@@ -38,7 +38,7 @@ const common = {
 const mapPx = z.int('must be an integer').min(2, 'must be ≥ 2').max(WAVE_LIMITS.map_px, `must be ≤ ${WAVE_LIMITS.map_px}`).optional()
 
 /**
- * POST /api/compute/corral (DESIGN.md §4), with added optional fields:
+ * POST /api/compute/corral (API contract in the README), with added optional fields:
  *   inset_nm            wall inset: effective radius = radius_nm − inset_nm (default 0)
  *   spectrum_range_eV   [from, to] (default [E0 − 0.1, E0 + 0.6]); spectrum_points (default 301)
  *   preset              surface-state preset id, only for the bias warnings
@@ -57,7 +57,7 @@ export const CorralInput = z.object({
 export type CorralInput = z.input<typeof CorralInput>
 
 /**
- * 1-D box for a chain (not in DESIGN.md §4 yet; a candidate for POST /api/compute/chain):
+ * 1-D box for a chain (POST /api/compute/chain):
  *   convention 'N·a' | '(N+1)·a' (needs atoms, spacing_nm) | 'custom' (needs L_nm)
  *   levels (default 10), broadening_eV, bias_V, line_px (LDOS along the box at bias_V),
  *   point_nm (x from the left wall for the spectrum; default L/2)

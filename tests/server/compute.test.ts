@@ -1,4 +1,4 @@
-// The stateless compute routes of DESIGN.md §4 through HTTP, against the built app (where they
+// The stateless compute routes of the API contract through HTTP, against the built app (where they
 // run in worker threads): contract fields, values against outside references, 400s naming the
 // field, 401 without a session.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
@@ -18,7 +18,7 @@ afterAll(async () => {
 
 describe('POST /api/compute/corral', () => {
   it('gives the hard-wall levels of the worked example', async () => {
-    // REFERENCES.md worked check (derived from E = E0 + (ħ²/2m*)(j/R)² with the A&S Table 9.5
+    // Worked check (derived from E = E0 + (ħ²/2m*)(j/R)² with the A&S Table 9.5
     // zeros): E0 = −0.44 eV, m* = 0.38, R = 7.13 nm → E01 −0.4286, E11 −0.4110, E21 −0.3880,
     // E02 −0.3799 eV.
     const res = await c.post('/api/compute/corral', { shape: 'circle', radius_nm: 7.13, E0_eV: -0.44, m_eff: 0.38, levels: 4 })

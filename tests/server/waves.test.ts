@@ -25,7 +25,7 @@ afterAll(async () => {
 })
 
 const path = () => `/api/labs/${labId}/samples/${sampleId}`
-// Ag(111) by tunnelling spectroscopy (Li et al., Phys. Rev. Lett. 1998; REFERENCES.md, from memory).
+// Ag(111) by tunnelling spectroscopy (Li et al., Phys. Rev. Lett. 1998, from memory).
 const agState = { E0_eV: -0.067, m_eff: 0.42, source: 'own STS at 5 K; cf. Li et al., PRL 1998' }
 
 describe('sample surface state', () => {

@@ -1,4 +1,4 @@
-// Hard-wall circular corral: levels, point spectrum and LDOS map (contract in DESIGN.md §4).
+// Hard-wall circular corral: levels, point spectrum and LDOS map (contract in the README's API section).
 export default defineEventHandler(async (event) => {
   await requireUserId(event)
   return runCompute({ kind: 'corral', input: await readJson(event) })

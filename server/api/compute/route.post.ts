@@ -1,4 +1,4 @@
-// The route solver, stateless (contract in DESIGN.md §4). Runs in a worker with a time limit.
+// The route solver, stateless (contract in the README's API section). Runs in a worker with a time limit.
 export default defineEventHandler(async (event) => {
   await requireUserId(event)
   return runCompute({ kind: 'route', input: await readJson(event) })

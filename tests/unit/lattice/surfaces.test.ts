@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { expectInputError } from './helpers'
 import { SURFACES, customSurface, getSiteType, getSurface, idealLattice, siteSetGeometry } from '../../../shared/lattice'
 
-// Lattice constants in Å: Ashcroft & Mermin, Solid State Physics, Table 4.3 (REFERENCES.md).
+// Lattice constants in Å: Ashcroft & Mermin, Solid State Physics, Table 4.3.
 const AM: Record<string, number> = { Cu: 3.61, Ag: 4.09, Au: 4.08, Pt: 3.92, Ni: 3.52, Pd: 3.89 }
 
 const len = (v: readonly number[]) => Math.hypot(v[0]!, v[1]!)
@@ -21,7 +21,7 @@ describe('surface library', () => {
     }
   })
 
-  it('nearest-neighbour distance is a/√2 (derived; REFERENCES.md: Cu 0.2553 nm with 3.61 Å)', () => {
+  it('nearest-neighbour distance is a/√2 (derived; Cu 0.2553 nm with 3.61 Å)', () => {
     for (const [el, a] of Object.entries(AM)) {
       for (const face of ['111', '100', '110']) expect(getSurface(`${el}(${face})`).nn_nm).toBeCloseTo(a / 10 / Math.SQRT2, 12)
     }
@@ -59,7 +59,7 @@ describe('surface library', () => {
     }
   })
 
-  it('fcc and hcp hollows on (111) are a/√6 apart (REFERENCES.md: Cu 0.1474 nm; derived)', () => {
+  it('fcc and hcp hollows on (111) are a/√6 apart (Cu 0.1474 nm; derived)', () => {
     for (const [el, aA] of Object.entries(AM)) {
       const s = getSurface(`${el}(111)`)
       const fcc = getSiteType(s, 'fcc').offsets_nm[0]!

@@ -1,5 +1,5 @@
 // Synthetic topographs (closed-form Gaussian: value h/2 at r = FWHM/2) and the seeded generators;
-// the zod schema of POST /api/compute/detect (DESIGN.md §4) with field-naming messages.
+// the zod schema of POST /api/compute/detect (API contract in the README) with field-naming messages.
 import { describe, expect, it } from 'vitest'
 import { DetectInput, parseDetectInput } from '../../../shared/scan/schema'
 import { mulberry32, normalGenerator, syntheticScan } from '../../../shared/scan/synthetic'

@@ -8,7 +8,7 @@ import { integrate } from './quadrature'
 // Published chain: Au on NiAl(110), spacing 2.89 Å (Nilius, Wallis, Ho, Science 297, 1853 (2002));
 // m* ≈ 0.5 (Nilius et al., J. Phys. Chem. C 2014; from memory). E0 = 0 here: only differences matter.
 const A = 0.289
-const HB = 0.0380998 // ħ²/(2 m_e), eV·nm² (REFERENCES.md, derived from CODATA)
+const HB = 0.0380998 // ħ²/(2 m_e), eV·nm² (derived from CODATA)
 
 describe('1-D box for chains', () => {
   it('makes the effective length an explicit convention', () => {

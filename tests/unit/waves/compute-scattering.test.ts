@@ -58,7 +58,7 @@ describe('computeScattering', () => {
   })
 })
 
-describe('surface-state presets (REFERENCES.md, "Shockley surface states")', () => {
+describe('surface-state presets (published values with their sources)', () => {
   it('carry the published values with sources', () => {
     // Crommie, Lutz, Eigler 1993 (tunnelling, from memory); Reinert et al. PRB 63, 115415 (2001)
     expect(findPreset('Cu(111)-tunnelling')).toMatchObject({ E0_eV: -0.44, m_eff: 0.38 })

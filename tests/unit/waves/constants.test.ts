@@ -3,7 +3,7 @@ import { HBAR2_2ME_eVnm2, cleanDos2D_per_eVnm2, kineticPrefactor_eVnm2 } from '.
 
 describe('physical constants', () => {
   it('derives ħ²/(2 m_e) = 0.0380998 eV·nm² from CODATA ħ, m_e and e', () => {
-    // REFERENCES.md "Physical constants": ħ²/(2 m_e) = 0.0380998 eV·nm² (derived from CODATA)
+    // ħ²/(2 m_e) = 0.0380998 eV·nm² (derived from CODATA)
     expect(Math.abs(HBAR2_2ME_eVnm2 - 0.0380998)).toBeLessThan(5e-8)
   })
 

@@ -22,14 +22,14 @@ function inputError(fn: () => unknown): { field: string, message: string } {
 }
 
 describe('hard-wall corral levels', () => {
-  it('reproduces the worked Cu(111) levels of REFERENCES.md (derived)', () => {
+  it('reproduces the worked Cu(111) levels (derived)', () => {
     // E01 = −0.4286, E11 = −0.4110, E21 = −0.3880, E02 = −0.3799 eV (4 decimals)
     const lv = corralLevels({ ...CU, count: 4 })
     expect(lv.map(l => [l.m, l.n])).toEqual([[0, 1], [1, 1], [2, 1], [0, 2]])
     const want = [-0.4286, -0.4110, -0.3880, -0.3799]
     lv.forEach((l, i) => expect(Math.abs(l.E_eV - want[i]!)).toBeLessThan(5e-5))
     expect(lv.map(l => l.degeneracy)).toEqual([1, 2, 2, 1])
-    // k_F·R = 14.94 with k_F = √(−E0·m*/(ħ²/2m_e)) (REFERENCES.md, derived)
+    // k_F·R = 14.94 with k_F = √(−E0·m*/(ħ²/2m_e)) (derived)
     const kF = Math.sqrt((0.44 * 0.38) / 0.0380998)
     expect(Math.abs(kF * 7.13 - 14.94)).toBeLessThan(0.005)
   })
@@ -41,7 +41,7 @@ describe('hard-wall corral levels', () => {
   })
 
   it('counts 28 distinct levels holding 51 orbitals below E_F for k_F·R in (14.93, 15.6)', () => {
-    // REFERENCES.md counting check (derived; 102 electrons with spin)
+    // Counting check (derived; 102 electrons with spin)
     for (const kR of [14.935, 15.0, 15.3, 15.58]) {
       const maxE = CU.E0_eV + (HBAR2_2ME_eVnm2 / CU.m_eff) * (kR / CU.radius_nm) ** 2
       const lv = corralLevels({ ...CU, maxE_eV: maxE })
@@ -146,7 +146,7 @@ describe('hard-wall eigenfunctions and LDOS', () => {
   })
 })
 
-describe('computeCorral (DESIGN.md §4 contract)', () => {
+describe('computeCorral (API contract)', () => {
   const base = { shape: 'circle', ...CU }
 
   it('returns levels only, when neither broadening nor a map is asked for', () => {

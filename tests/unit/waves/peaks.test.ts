@@ -44,7 +44,7 @@ describe('peak finder on Lorentzian sums', () => {
   })
 
   it('separates the hard-wall levels of the 7.13 nm Cu(111) ring when the broadening allows', () => {
-    // Levels: E0 = −0.44 eV, m* = 0.38, R = 7.13 nm (REFERENCES.md worked check); the m = 0
+    // Levels: E0 = −0.44 eV, m* = 0.38, R = 7.13 nm (worked check, derived); the m = 0
     // levels, each a unit-area Lorentzian.
     const lv = corralLevels({ radius_nm: 7.13, E0_eV: -0.44, m_eff: 0.38, count: 30 }).filter(l => l.m === 0).slice(0, 3)
     const x = grid(-0.45, -0.25, 2001)

@@ -7,7 +7,7 @@ import {
 import { cleanDos2D_per_eVnm2 } from '../../../shared/waves/constants'
 import { integrate } from './quadrature'
 
-// Cu(111) surface state, from REFERENCES.md: E0 = −0.44 eV, m* = 0.38 (Crommie, Lutz, Eigler 1993,
+// Cu(111) surface state, E0 = −0.44 eV, m* = 0.38 (Crommie, Lutz, Eigler 1993,
 // from memory); ħ²/(2m_e) = 0.0380998 eV·nm² (CODATA, derived).
 const E0 = -0.44
 const M = 0.38
@@ -29,7 +29,7 @@ function xyOf(pts: [number, number][]): Float64Array {
 }
 
 describe('scatterer amplitude', () => {
-  it('follows ½(e^{2iδ0} − 1): black dot −½, hard elastic δ0 = π/2 gives −1 (REFERENCES.md, Models)', () => {
+  it('follows ½(e^{2iδ0} − 1): black dot −½, hard elastic δ0 = π/2 gives −1 (Heller, Crommie, Lutz, Eigler, Nature 369, 464 (1994))', () => {
     expect(BLACK_DOT).toEqual({ re: -0.5, im: 0 })
     const hard = amplitudeFromPhaseShift({ re: Math.PI / 2, im: 0 })
     expect(hard.re).toBeCloseTo(-1, 15)
