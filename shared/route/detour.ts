@@ -6,45 +6,10 @@ import type { Occupancy } from './clearance'
 import { segmentEntersZone } from './geometry'
 import { simplifyPath, type Metric } from './metric'
 import type { Point } from './types'
+import { KeyHeap } from './priority'
 
 export interface DetourOptions {
   maxNodes?: number
-}
-
-class Heap {
-  private k: number[] = []
-  private v: number[] = []
-  get size() { return this.k.length }
-  push(key: number, val: number) {
-    const k = this.k, v = this.v
-    let i = k.length
-    k.push(key); v.push(val)
-    while (i > 0) {
-      const p = (i - 1) >> 1
-      if (k[p]! <= key) break
-      k[i] = k[p]!; v[i] = v[p]!; i = p
-    }
-    k[i] = key; v[i] = val
-  }
-
-  pop(): number {
-    const k = this.k, v = this.v
-    const top = v[0]!
-    const lk = k.pop()!, lv = v.pop()!
-    const n = k.length
-    if (n > 0) {
-      let i = 0
-      for (;;) {
-        let c = 2 * i + 1
-        if (c >= n) break
-        if (c + 1 < n && k[c + 1]! < k[c]!) c++
-        if (k[c]! >= lk) break
-        k[i] = k[c]!; v[i] = v[c]!; i = c
-      }
-      k[i] = lk; v[i] = lv
-    }
-    return top
-  }
 }
 
 function gridSteps(metric: Metric, clearance_nm: number, span_nm: number): { b1: Point, b2: Point, steps: Array<[number, number]> } {
@@ -87,7 +52,7 @@ export function findDetour(occ: Occupancy, metric: Metric, atom: number, p: Poin
   const X = (n: number) => p[0] + gi[n]! * b1[0] + gj[n]! * b2[0]
   const Y = (n: number) => p[1] + gi[n]! * b1[1] + gj[n]! * b2[1]
   index.set(key(0, 0), 0)
-  const open = new Heap()
+  const open = new KeyHeap()
   open.push(metric.norm(s[0] - p[0], s[1] - p[1]), 0)
   let goal = -1, connector: Point[] = []
   while (open.size > 0) {
