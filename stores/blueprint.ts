@@ -41,8 +41,7 @@ export const useBlueprintStore = defineStore('blueprint', () => {
   /** Minimum spacing in nm; null = the default of two nearest-neighbour distances. */
   const minSpacing = ref<number | null>(null)
   const selected = ref(new Set<number>())
-  const undoStack = shallowRef<DraftShape[][]>([])
-  const redoStack = shallowRef<DraftShape[][]>([])
+  const history = snapshotHistory(draft, HISTORY)
   const dirty = ref(false)
   let nextId = 1
   const cache = createDraftCache()
@@ -83,9 +82,7 @@ export const useBlueprintStore = defineStore('blueprint', () => {
   }
 
   function commit(next: DraftShape[]) {
-    undoStack.value = [...undoStack.value.slice(-HISTORY + 1), draft.value]
-    redoStack.value = []
-    draft.value = next
+    history.commit(next)
     dirty.value = true
   }
   function add(shapes: Shape[]) {
@@ -108,8 +105,7 @@ export const useBlueprintStore = defineStore('blueprint', () => {
   /** Ends a live drag: one history entry from where it started. */
   function endDrag(before: DraftShape[]) {
     if (before === draft.value) return
-    undoStack.value = [...undoStack.value.slice(-HISTORY + 1), before]
-    redoStack.value = []
+    history.record(before)
     dirty.value = true
   }
   function remove(ids: Iterable<number>) {
@@ -119,20 +115,10 @@ export const useBlueprintStore = defineStore('blueprint', () => {
     selected.value = new Set([...selected.value].filter(id => !drop.has(id)))
   }
   function undo() {
-    const prev = undoStack.value.at(-1)
-    if (!prev) return
-    redoStack.value = [...redoStack.value, draft.value]
-    undoStack.value = undoStack.value.slice(0, -1)
-    draft.value = prev
-    dirty.value = true
+    if (history.undo()) dirty.value = true
   }
   function redo() {
-    const next = redoStack.value.at(-1)
-    if (!next) return
-    undoStack.value = [...undoStack.value, draft.value]
-    redoStack.value = redoStack.value.slice(0, -1)
-    draft.value = next
-    dirty.value = true
+    if (history.redo()) dirty.value = true
   }
   function select(ids: Iterable<number>, additive = false) {
     selected.value = new Set(additive ? [...selected.value, ...ids] : ids)
@@ -151,8 +137,7 @@ export const useBlueprintStore = defineStore('blueprint', () => {
     nextId = 1
     draft.value = (row.shapes as Shape[]).map(shape => ({ id: nextId++, shape }))
     selected.value = new Set()
-    undoStack.value = []
-    redoStack.value = []
+    history.clear()
     dirty.value = false
   }
   /** Takes an earlier version's shapes as the draft of a new version on top of the latest. */
@@ -170,8 +155,7 @@ export const useBlueprintStore = defineStore('blueprint', () => {
     name.value = 'Blueprint'
     minSpacing.value = null
     selected.value = new Set()
-    undoStack.value = []
-    redoStack.value = []
+    history.clear()
     dirty.value = false
   }
 
@@ -208,7 +192,7 @@ export const useBlueprintStore = defineStore('blueprint', () => {
   return {
     current, latest, versions, draft, name, minSpacing, selected, dirty, sites, sitesNm,
     surface, site, minSpacingNm, viewingOld, bounds, expansion, problems,
-    canUndo: computed(() => undoStack.value.length > 0), canRedo: computed(() => redoStack.value.length > 0),
+    canUndo: history.canUndo, canRedo: history.canRedo,
     add, replace, replaceMany, endDrag, remove, undo, redo, select, setMinSpacing, show, restore, clear, open, loadLatest, save,
   }
 })

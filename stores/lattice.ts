@@ -34,8 +34,7 @@ export const useLatticeStore = defineStore('lattice', () => {
   const siteChoice = ref('')
   /** A lattice being placed by hand (scan frame), or null. */
   const hand = shallowRef<Lattice | null>(null)
-  const handUndo = shallowRef<Lattice[]>([])
-  const handRedo = shallowRef<Lattice[]>([])
+  const handHistory = snapshotHistory(hand, HISTORY)
 
   /** The registered lattice, or null before a fit exists. */
   const lattice = computed(() => fit.value
@@ -115,36 +114,23 @@ export const useLatticeStore = defineStore('lattice', () => {
 
   function startHand(initial: Lattice) {
     hand.value = initial
-    handUndo.value = []
-    handRedo.value = []
+    handHistory.clear()
   }
   /** Sets the placement; `live` skips the history (during a drag; end it with endHandDrag). */
   function setHand(next: Lattice, live = false) {
     if (!hand.value) return
-    if (!live) {
-      handUndo.value = [...handUndo.value.slice(-HISTORY + 1), hand.value]
-      handRedo.value = []
-    }
+    if (!live) handHistory.record()
     hand.value = next
   }
   function endHandDrag(before: Lattice) {
     if (before === hand.value) return
-    handUndo.value = [...handUndo.value.slice(-HISTORY + 1), before]
-    handRedo.value = []
+    handHistory.record(before)
   }
   function undoHand() {
-    const prev = handUndo.value.at(-1)
-    if (!prev || !hand.value) return
-    handRedo.value = [...handRedo.value, hand.value]
-    handUndo.value = handUndo.value.slice(0, -1)
-    hand.value = prev
+    if (hand.value) handHistory.undo()
   }
   function redoHand() {
-    const next = handRedo.value.at(-1)
-    if (!next || !hand.value) return
-    handUndo.value = [...handUndo.value, hand.value]
-    handRedo.value = handRedo.value.slice(0, -1)
-    hand.value = next
+    if (hand.value) handHistory.redo()
   }
   function cancelHand() {
     hand.value = null
@@ -161,7 +147,7 @@ export const useLatticeStore = defineStore('lattice', () => {
   }
   return {
     fit, versions, scanId, siteChoice, hand, lattice, surface, site, map, shown, minSeparation_nm, snap,
-    canUndoHand: computed(() => handUndo.value.length > 0), canRedoHand: computed(() => handRedo.value.length > 0),
+    canUndoHand: handHistory.canUndo, canRedoHand: handHistory.canRedo,
     load, save, saved, set, reset, startHand, setHand, endHandDrag, undoHand, redoHand, cancelHand,
   }
 })

@@ -9,8 +9,7 @@ const HISTORY = 200
 export const useMarksStore = defineStore('marks', () => {
   const marks = shallowRef<EditableMark[]>([])
   const selected = ref(new Set<number>())
-  const undoStack = shallowRef<EditableMark[][]>([])
-  const redoStack = shallowRef<EditableMark[][]>([])
+  const history = snapshotHistory(marks, HISTORY)
   // Server version the current array descends from, and whether there are unsaved edits.
   const baseVersion = ref(0)
   const dirty = ref(false)
@@ -20,15 +19,12 @@ export const useMarksStore = defineStore('marks', () => {
     nextId = 1
     marks.value = list.map(m => ({ ...m, id: nextId++ }))
     selected.value = new Set()
-    undoStack.value = []
-    redoStack.value = []
+    history.clear()
     baseVersion.value = version
     dirty.value = false
   }
   function commit(next: EditableMark[]) {
-    undoStack.value = [...undoStack.value.slice(-HISTORY + 1), marks.value]
-    redoStack.value = []
-    marks.value = next
+    history.commit(next)
     dirty.value = true
   }
   function add(x_nm: number, y_nm: number, height_nm = 0, species?: string) {
@@ -52,8 +48,7 @@ export const useMarksStore = defineStore('marks', () => {
   /** Ends a live drag: one history entry from where it started. */
   function endDrag(before: EditableMark[]) {
     if (before === marks.value) return
-    undoStack.value = [...undoStack.value.slice(-HISTORY + 1), before]
-    redoStack.value = []
+    history.record(before)
     dirty.value = true
   }
   function tag(ids: Iterable<number>, species: string | undefined) {
@@ -61,20 +56,10 @@ export const useMarksStore = defineStore('marks', () => {
     commit(marks.value.map(m => set.has(m.id) ? { ...m, species: species || undefined } : m))
   }
   function undo() {
-    const prev = undoStack.value.at(-1)
-    if (!prev) return
-    redoStack.value = [...redoStack.value, marks.value]
-    undoStack.value = undoStack.value.slice(0, -1)
-    marks.value = prev
-    dirty.value = true
+    if (history.undo()) dirty.value = true
   }
   function redo() {
-    const next = redoStack.value.at(-1)
-    if (!next) return
-    undoStack.value = [...undoStack.value, marks.value]
-    redoStack.value = redoStack.value.slice(0, -1)
-    marks.value = next
-    dirty.value = true
+    if (history.redo()) dirty.value = true
   }
   function select(ids: Iterable<number>, additive = false) {
     selected.value = new Set(additive ? [...selected.value, ...ids] : ids)
@@ -102,7 +87,6 @@ export const useMarksStore = defineStore('marks', () => {
     dirty.value = false
   }
 
-  const canUndo = computed(() => undoStack.value.length > 0)
-  const canRedo = computed(() => redoStack.value.length > 0)
+  const { canUndo, canRedo } = history
   return { marks, selected, baseVersion, dirty, canUndo, canRedo, load, add, remove, moveBy, endDrag, tag, undo, redo, select, nearest, inBox, saved }
 })

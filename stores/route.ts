@@ -20,8 +20,7 @@ export const useRouteStore = defineStore('route', () => {
   const cost = ref<'distance' | 'squared'>('distance')
   // Locks and exclusions by mark id (stable while marks are edited); indices are taken at solve time.
   const draft = shallowRef<Draft>({ locked: new Set(), excluded: new Set(), keepOut: [] })
-  const undoStack = shallowRef<Draft[]>([])
-  const redoStack = shallowRef<Draft[]>([])
+  const history = snapshotHistory(draft, 100)
   /** Corners of the keep-out polygon being drawn. */
   const drawing = shallowRef<Point[]>([])
   const mode = ref<RouteMode>('pick')
@@ -43,9 +42,7 @@ export const useRouteStore = defineStore('route', () => {
   const moves = computed(() => current.value?.result.moves ?? [])
 
   function edit(next: Partial<Draft>) {
-    undoStack.value = [...undoStack.value.slice(-99), draft.value]
-    redoStack.value = []
-    draft.value = { ...draft.value, ...next }
+    history.commit({ ...draft.value, ...next })
   }
   function toggle(kind: 'locked' | 'excluded', markId: number) {
     const set = new Set(draft.value[kind])
@@ -66,20 +63,7 @@ export const useRouteStore = defineStore('route', () => {
   function clearDraft(what: 'locked' | 'excluded' | 'keepOut') {
     edit({ [what]: what === 'keepOut' ? [] : new Set() })
   }
-  function undo() {
-    const prev = undoStack.value.at(-1)
-    if (!prev) return
-    redoStack.value = [...redoStack.value, draft.value]
-    undoStack.value = undoStack.value.slice(0, -1)
-    draft.value = prev
-  }
-  function redo() {
-    const next = redoStack.value.at(-1)
-    if (!next) return
-    undoStack.value = [...undoStack.value, draft.value]
-    redoStack.value = redoStack.value.slice(0, -1)
-    draft.value = next
-  }
+  const { undo, redo } = history
 
   async function loadList(blueprintId: number) {
     list.value = await api<RouteSummary[]>(`/api/blueprints/${blueprintId}/routes`)
@@ -170,8 +154,7 @@ export const useRouteStore = defineStore('route', () => {
     list.value = []
     show(null)
     draft.value = { locked: new Set(), excluded: new Set(), keepOut: [] }
-    undoStack.value = []
-    redoStack.value = []
+    history.clear()
     drawing.value = []
     problem.value = ''
     fields.value = {}
@@ -180,7 +163,7 @@ export const useRouteStore = defineStore('route', () => {
   return {
     list, current, fallbackBlueprint, fallbackFitVersion, clearance, cost, draft, drawing, mode, solving, problem, fields,
     colourBy, step, phase, playing, animating, speed, moves,
-    canUndo: computed(() => undoStack.value.length > 0), canRedo: computed(() => redoStack.value.length > 0),
+    canUndo: history.canUndo, canRedo: history.canRedo,
     toggle, adopt, addKeepOut, removeKeepOut, clearDraft, undo, redo, loadList, open, show, solve, select, next, prev, togglePlay, advance, reset,
   }
 })

@@ -67,32 +67,11 @@ export const useWavesStore = defineStore('waves', () => {
 
   // Probe point in the scan frame, with undo/redo (a canvas action like any other).
   const probe = ref<Pt | null>(null)
-  const past = shallowRef<(Pt | null)[]>([])
-  const future = shallowRef<(Pt | null)[]>([])
-  function setProbe(p: Pt | null) {
-    past.value = [...past.value, probe.value]
-    future.value = []
-    probe.value = p
-  }
-  function undoProbe(): boolean {
-    if (!past.value.length) return false
-    future.value = [...future.value, probe.value]
-    probe.value = past.value.at(-1) ?? null
-    past.value = past.value.slice(0, -1)
-    return true
-  }
-  function redoProbe(): boolean {
-    if (!future.value.length) return false
-    past.value = [...past.value, probe.value]
-    probe.value = future.value.at(-1) ?? null
-    future.value = future.value.slice(0, -1)
-    return true
-  }
-  const canUndo = computed(() => past.value.length > 0)
-  const canRedo = computed(() => future.value.length > 0)
+  const probeHistory = snapshotHistory(probe)
+  const setProbe = (p: Pt | null) => probeHistory.commit(p)
+  const { undo: undoProbe, redo: redoProbe, canUndo, canRedo } = probeHistory
   function resetProbe() {
-    past.value = []
-    future.value = []
+    probeHistory.clear()
     probe.value = null
   }
 
