@@ -2,8 +2,8 @@
 // lossy, so values are compared with the source within a tolerance and dimensions exactly.
 import jpeg from 'jpeg-js'
 import { describe, expect, it } from 'vitest'
-import { InputError } from '../../../shared/errors'
 import { decodeScan } from '../../../shared/scan/decode'
+import { expectInputError } from './expect-file-error'
 
 function encodeGrey(w: number, h: number, level: (c: number, r: number) => number, quality = 95): Uint8Array {
   const data = new Uint8Array(w * h * 4)
@@ -14,19 +14,6 @@ function encodeGrey(w: number, h: number, level: (c: number, r: number) => numbe
     }
   }
   return new Uint8Array(jpeg.encode({ width: w, height: h, data }, quality).data)
-}
-
-function expectInputError(fn: () => unknown, message: RegExp) {
-  try {
-    fn()
-  }
-  catch (e) {
-    expect(e).toBeInstanceOf(InputError)
-    expect((e as InputError).field).toBe('file')
-    expect((e as InputError).message).toMatch(message)
-    return
-  }
-  throw new Error('expected an InputError')
 }
 
 describe('JPEG decoding', () => {

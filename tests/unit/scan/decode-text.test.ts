@@ -1,25 +1,12 @@
 // Numeric text grids and format sniffing. Expected values are the decimal numbers written in the
 // test, rounded to Float32 by Math.fround (IEEE 754 round-to-nearest).
 import { describe, expect, it } from 'vitest'
-import { InputError } from '../../../shared/errors'
 import { decodeScan } from '../../../shared/scan/decode'
 import { sniffFormat } from '../../../shared/scan/sniff'
 import { decodeTextGrid } from '../../../shared/scan/text'
+import { expectInputError } from './expect-file-error'
 
 const enc = (s: string) => new TextEncoder().encode(s)
-
-function expectInputError(fn: () => unknown, message: RegExp) {
-  try {
-    fn()
-  }
-  catch (e) {
-    expect(e).toBeInstanceOf(InputError)
-    expect((e as InputError).field).toBe('file')
-    expect((e as InputError).message).toMatch(message)
-    return
-  }
-  throw new Error('expected an InputError')
-}
 
 describe('text grids', () => {
   it('reads CSV with # header lines, CRLF, blank lines and a trailing comma', () => {

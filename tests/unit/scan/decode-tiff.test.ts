@@ -3,23 +3,10 @@
 // for comparison.
 import UTIF from 'utif'
 import { describe, expect, it } from 'vitest'
-import { InputError } from '../../../shared/errors'
 import { decodeScan } from '../../../shared/scan/decode'
 import { mulberry32 } from '../../../shared/scan/synthetic'
 import { writeTiff, type TiffSpec } from './tiff-writer'
-
-function expectInputError(fn: () => unknown, message: RegExp) {
-  try {
-    fn()
-  }
-  catch (e) {
-    expect(e).toBeInstanceOf(InputError)
-    expect((e as InputError).field).toBe('file')
-    expect((e as InputError).message).toMatch(message)
-    return
-  }
-  throw new Error('expected an InputError')
-}
+import { expectInputError } from './expect-file-error'
 
 function utifBytes(file: Uint8Array): Uint8Array {
   const ab = file.buffer.slice(file.byteOffset, file.byteOffset + file.byteLength) as ArrayBuffer
