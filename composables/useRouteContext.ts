@@ -22,7 +22,8 @@ export function useRouteContext() {
   })
   const stale = computed(() => {
     const r = route.current
-    if (!r) return null
+    // An after-scan on the canvas (the as-built check) is not something the plan is solved from.
+    if (!r || scan.meta?.purpose === 'after') return null
     return routeStaleReason(
       { scan_id: r.scan_id, blueprint_id: r.blueprint_id, marks_version: r.options.marks_version, lattice_fit_version: r.options.lattice_fit_version },
       { scanId: scan.meta?.id, blueprintId: blueprint.value?.id, marksVersion: marks.baseVersion, marksDirty: marks.dirty, fitVersion: fitVersion.value },

@@ -82,17 +82,19 @@ async function seedDemoNight(db: Db, o: { labId: number, sampleId: number, userI
   for (const m of result.moves) final[m.atom] = [...m.path.at(-1)!] as [number, number]
   const missed = result.moves[9]!.atom
   final[missed] = [final[missed]![0] + o.fit.a1[0], final[missed]![1] + o.fit.a1[1]]
-  const after = demoAfterScan(final, o.size_nm)
+  // As detected on the after-scan: each atom within a few pm of where it sits.
+  const seen = final.map(([x, y], k) => [x + 0.006 * Math.sin(1.7 * k), y + 0.006 * Math.cos(2.3 * k)] as [number, number])
+  const after = demoAfterScan(seen, o.size_nm)
   const afterScan = await storeDemoScan(db, { ...o, name: 'AG-07_night3_after.tsg', purpose: 'after', grid: after.scan, takenAt: new Date(started.getTime() + 5.5 * 3600_000), notes: 'After the ring: same tip, same setpoint.' })
   await db.insert(schema.markSets).values({ scan_id: afterScan.id, version: 1, source: 'detect', marks: after.atoms.map(a => ({ ...a, score: 40 })), count: after.atoms.length, created_by: o.userId })
   await db.insert(schema.latticeFits).values({ scan_id: afterScan.id, version: 1, surface: after.fit.surface, site: after.fit.site, source: 'fit', result: { ...after.fit }, residual_nm: after.fit.residual_nm, created_by: o.userId })
   // The after-scan's fit has its own origin: register the blueprint to where it was planned (no
   // drift between the two demo scans).
   const afterSites = alignByLatticeVector(toScanFrame(expanded.sites, after.fit) as [number, number][], sites, after.fit.a1, after.fit.a2).points
-  const check = checkAsBuilt({ sites: afterSites, found: final, tolerance_nm: 0.1 })
+  const check = checkAsBuilt({ sites: afterSites, found: seen, tolerance_nm: 0.1 })
   await db.insert(schema.asBuiltChecks).values({
     lab_id: o.labId, blueprint_id: o.blueprintId, scan_id: afterScan.id, run_id: run!.id, tolerance_nm: 0.1,
-    result: { ...check, sites: afterSites, found: final } as unknown as Record<string, unknown>, fidelity: check.fidelity, rms_nm: check.rms_nm, created_by: o.userId,
+    result: { ...check, sites: afterSites, found: seen } as unknown as Record<string, unknown>, fidelity: check.fidelity, rms_nm: check.rms_nm, created_by: o.userId,
   })
 }
 
