@@ -4,8 +4,8 @@ import { besselJ, besselY, besselJY01, ASYMPTOTIC_MIN_X } from '../../../shared/
 import { besselJZero, besselJZeros } from '../../../shared/waves/bessel-zeros'
 import { besselJHighPrec, besselY0HighPrec, besselY1HighPrec } from './highprec'
 
-// Abramowitz & Stegun, Handbook of Mathematical Functions, Table 9.5; NIST DLMF §10.21
-//. Rows m = 0…5, columns n = 1…5.
+// Abramowitz & Stegun, Handbook of Mathematical Functions, Table 9.5; NIST DLMF §10.21.
+// Rows m = 0…5, columns n = 1…5.
 const AS_TABLE_9_5 = [
   [2.4048255577, 5.5200781103, 8.6537279129, 11.7915344390, 14.9309177085],
   [3.8317059702, 7.0155866698, 10.1734681351, 13.3236919363, 16.4706300509],
