@@ -160,6 +160,8 @@ export const blueprints = sqliteTable('blueprints', {
   lab_id: integer('lab_id').notNull().references(() => labs.id, { onDelete: 'cascade' }),
   sample_id: integer('sample_id').notNull().references(() => samples.id, { onDelete: 'cascade' }),
   build_id: integer('build_id').references(() => builds.id),
+  // The scan whose lattice fit the shapes were drawn through: later scans are registered to it.
+  scan_id: integer('scan_id').references(() => scans.id),
   lineage: integer('lineage').notNull(),
   version: integer('version').notNull(),
   name: text('name').notNull(),

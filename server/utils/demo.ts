@@ -43,7 +43,7 @@ async function seedDemoBuild(db: Db, ids: { labId: number, sampleId: number, use
   await db.insert(schema.markSets).values({ scan_id: row.id, version: 1, source: 'detect', marks: marks.map(a => ({ ...a, score: 40 })), count: marks.length, created_by: ids.userId })
   await db.insert(schema.latticeFits).values({ scan_id: row.id, version: 1, surface: fit.surface, site: fit.site, source: 'fit', result: { ...fit }, residual_nm: fit.residual_nm, created_by: ids.userId })
   const [bp] = await db.insert(schema.blueprints).values({
-    lab_id: ids.labId, sample_id: ids.sampleId, build_id: build!.id, lineage: 0, version: 1, name: 'Ring 24', surface: 'Ag(111)', site: 'fcc',
+    lab_id: ids.labId, sample_id: ids.sampleId, build_id: build!.id, scan_id: row.id, lineage: 0, version: 1, name: 'Ring 24', surface: 'Ag(111)', site: 'fcc',
     shapes: [{ type: 'ring', center: [0, 0], radius_nm: 3.5, n: 24 }], site_count: 24, created_by: ids.userId,
   }).returning()
   await db.update(schema.blueprints).set({ lineage: bp!.id }).where(eq(schema.blueprints.id, bp!.id))

@@ -61,10 +61,14 @@ export async function registeredSitesOn(db: Db, blueprint: BlueprintRow, scan: S
   return { sites: aligned.points, registration: { reference_scan_id: referenceScanId, drift_nm: [drift.dx, drift.dy], support: drift.support, shift: aligned.shift } }
 }
 
-/** The scan a blueprint was planned on: that of its newest route, else the build's newest plan scan with a fit. */
+/**
+ * The scan a blueprint was planned on: that of its newest route, else the scan it was drawn on,
+ * else the build's newest plan scan with a fit.
+ */
 export async function planningScanOf(db: Db, blueprint: BlueprintRow): Promise<number | null> {
   const route = await db.query.routes.findFirst({ where: and(eq(schema.routes.blueprint_id, blueprint.id), isNotNull(schema.routes.scan_id)), orderBy: desc(schema.routes.id) })
   if (route?.scan_id) return route.scan_id
+  if (blueprint.scan_id) return blueprint.scan_id
   if (!blueprint.build_id) return null
   const scans = await db.query.scans.findMany({ where: and(eq(schema.scans.build_id, blueprint.build_id), eq(schema.scans.purpose, 'plan')), orderBy: desc(schema.scans.id) })
   for (const s of scans) if (await latestFit(db, s.id)) return s.id

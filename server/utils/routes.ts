@@ -62,6 +62,8 @@ export async function planFromScan(db: Db, blueprint: BlueprintRow, scanId: numb
     throw bad('marks', `${marks.count} marks and ${expanded.sites.length} sites exceed the route limit of ${MAX_ROUTE_POINTS} atoms + sites`)
   }
   const frame = fit.result as unknown as FitFrame
+  // Registered to the given scan, else to the scan the blueprint was drawn on.
+  referenceScanId ??= blueprint.scan_id
   const sites = referenceScanId && referenceScanId !== scan.id
     ? (await registeredSitesOn(db, blueprint, scan, fit, referenceScanId)).sites
     : await compute400(() => toScanFrame(expanded.sites, frame)) as Point[]

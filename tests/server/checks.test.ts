@@ -114,3 +114,27 @@ describe('after-scan registered to the planning scan', () => {
     expect(res.body.result.registration.drift_nm[0]).toBeCloseTo(0.7, 3)
   })
 })
+
+describe('route on another plan scan than the one the blueprint was drawn on', () => {
+  it('carries the sites to the same atoms of the substrate (drift and origin site handled)', async () => {
+    // Hand-computed: the second scan drifted by (−0.5, 0.3) nm and its lattice origin sits on site
+    // (3, −1) of the first scan's lattice; the sites must come out at the drifted positions.
+    const lab3 = await makeLab(c, 'Second-scan lab')
+    const spectators: [number, number][] = [[1, 18], [18, 17], [17, 2], [3, 12], [12, 15], [15, 9]]
+    const first = await makeScan(c, lab3, spectators)
+    const bp = (await c.post(`/api/labs/${lab3.labId}/builds/${lab3.buildId}/blueprints`, { name: 'Sites', surface: 'Ag(111)', site: 'fcc', shapes: [{ type: 'sites', sites: SITES }], scan_id: first })).body
+    expect(bp.scan_id).toBe(first)
+    const drift: [number, number] = [-0.5, 0.3]
+    const moved = (p: [number, number]): [number, number] => [p[0] + drift[0], p[1] + drift[1]]
+    const up = await c.upload(`/api/labs/${lab3.labId}/samples/${lab3.sampleId}/scans`, { name: 'second.csv', data: '0,0\n0,0\n' }, { size_x_nm: 20, size_y_nm: 20, build_id: lab3.buildId })
+    await c.post(`/api/scans/${up.body.id}/marks`, { marks: spectators.map(moved).map(([x_nm, y_nm]) => ({ x_nm, y_nm })), base_version: 0 })
+    const d = (i: number, j: number) => sitePos(i, j).map((v, k) => v - sitePos(0, 0)[k]!)
+    expect((await c.post(`/api/scans/${up.body.id}/lattice-fit`, { mode: 'hand', surface: 'Ag(111)', site: 'fcc', a1: d(1, 0), a2: d(0, 1), origin: moved(sitePos(3, -1)) })).status).toBe(201)
+    const route = await c.post(`/api/blueprints/${bp.id}/routes`, { scan_id: up.body.id })
+    expect(route.status).toBe(201)
+    route.body.result.sites.forEach((p: [number, number], k: number) => {
+      const want = moved(sitePos(SITES[k]![0], SITES[k]![1]))
+      expect(Math.hypot(p[0] - want[0], p[1] - want[1])).toBeLessThan(1e-6)
+    })
+  })
+})

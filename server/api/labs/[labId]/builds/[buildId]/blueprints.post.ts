@@ -17,6 +17,7 @@ export default defineEventHandler(async (event) => {
   const expanded = await compute400(() => expandRow({ shapes: body.shapes, surface: body.surface, site, min_spacing_nm: body.min_spacing_nm ?? null }, bounds))
   let version = 1
   let lineage: number | undefined
+  let drawnOn = body.scan_id ?? null
   if (body.lineage !== undefined) {
     const latest = await latestInLineage(db, body.lineage)
     if (!latest || latest.lab_id !== access.labId || latest.build_id !== build.id) throw createError({ statusCode: 404, message: 'No such blueprint' })
@@ -25,9 +26,10 @@ export default defineEventHandler(async (event) => {
     }
     lineage = body.lineage
     version = latest.version + 1
+    drawnOn ??= latest.scan_id
   }
   const [row] = await db.insert(schema.blueprints).values({
-    lab_id: access.labId, sample_id: build.sample_id, build_id: build.id,
+    lab_id: access.labId, sample_id: build.sample_id, build_id: build.id, scan_id: drawnOn,
     lineage: lineage ?? 0, version, name: body.name, surface: body.surface, site,
     min_spacing_nm: body.min_spacing_nm ?? null, shapes: body.shapes, site_count: expanded.sites.length, created_by: access.userId,
   }).returning()

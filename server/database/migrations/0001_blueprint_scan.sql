@@ -1,0 +1,1 @@
+ALTER TABLE `blueprints` ADD `scan_id` integer REFERENCES scans(id);
