@@ -48,12 +48,7 @@ function geometricCost(points: readonly Point[], cx: number, cy: number, R: numb
 export function fitCircle(points: readonly Point[], field = 'sites'): CircleFit {
   checkPoints(points, field, 3)
   const n = points.length
-  let mx = 0
-  let my = 0
-  for (const [x, y] of points) {
-    mx += x / n
-    my += y / n
-  }
+  const [mx, my] = centroid(points)
   // Kåsa in coordinates centred on the mean (better conditioned): rows [u, v, 1], rhs −(u² + v²).
   let suu = 0, suv = 0, svv = 0, su = 0, sv = 0, suz = 0, svz = 0, sz = 0
   for (const [x, y] of points) {
@@ -118,12 +113,7 @@ export interface ChainFit {
 export function fitChain(points: readonly Point[], field = 'sites'): ChainFit {
   checkPoints(points, field, 1)
   const n = points.length
-  let mx = 0
-  let my = 0
-  for (const [x, y] of points) {
-    mx += x / n
-    my += y / n
-  }
+  const [mx, my] = centroid(points)
   if (n === 1) return { center: [mx, my], direction: [1, 0], atoms: 1, spacing_nm: null, offAxis_rms_nm: 0, along_nm: [0] }
   let sxx = 0, sxy = 0, syy = 0
   for (const [x, y] of points) {
@@ -154,4 +144,14 @@ export function fitChain(points: readonly Point[], field = 'sites'): ChainFit {
     offAxis_rms_nm: Math.sqrt(off / n),
     along_nm: t.map(v => v - mid).sort((a, b) => a - b),
   }
+}
+
+function centroid(points: readonly Point[]): Point {
+  let mx = 0
+  let my = 0
+  for (const [x, y] of points) {
+    mx += x / points.length
+    my += y / points.length
+  }
+  return [mx, my]
 }

@@ -3,9 +3,9 @@
 // reload, and find the same sites (the API's expanded sites and the counts shown, before and after);
 // and place the lattice by hand with the canvas handles.
 import type { Browser, Page } from 'playwright-core'
-import { afterAll, beforeAll, expect, it } from 'vitest'
-import { startApp, type RunningApp } from '../helpers/app'
-import { launch, register } from '../helpers/browser'
+import { expect, it } from 'vitest'
+import type { RunningApp } from '../helpers/app'
+import { register, withAppAndBrowser } from '../helpers/browser'
 import { Client } from '../helpers/client'
 
 let app: RunningApp
@@ -15,12 +15,9 @@ let browser: Browser
 const nn = 0.409 / Math.SQRT2
 const theta = (10 * Math.PI) / 180
 
-beforeAll(async () => {
-  [app, browser] = await Promise.all([startApp(), launch()])
-})
-afterAll(async () => {
-  await browser?.close()
-  await app?.stop()
+withAppAndBrowser((a, b) => {
+  app = a
+  browser = b
 })
 
 async function view(page: Page) {

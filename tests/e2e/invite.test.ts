@@ -2,19 +2,16 @@
 // opens the link from the mail the fake SMTP server received, in a second browser context,
 // registers, accepts, and sees the lab.
 import type { Browser } from 'playwright-core'
-import { afterAll, beforeAll, expect, it } from 'vitest'
-import { startApp, type RunningApp } from '../helpers/app'
-import { launch, ready, register } from '../helpers/browser'
+import { expect, it } from 'vitest'
+import type { RunningApp } from '../helpers/app'
+import { ready, register, withAppAndBrowser } from '../helpers/browser'
 import { linkIn, waitForMail } from '../helpers/client'
 
 let app: RunningApp
 let browser: Browser
-beforeAll(async () => {
-  [app, browser] = await Promise.all([startApp(), launch()])
-})
-afterAll(async () => {
-  await browser?.close()
-  await app?.stop()
+withAppAndBrowser((a, b) => {
+  app = a
+  browser = b
 })
 
 it('register → create lab → invite → accept in a second context → see the lab', async () => {

@@ -3,10 +3,10 @@
 import { writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import type { Browser, Page } from 'playwright-core'
-import { afterAll, beforeAll, expect, it } from 'vitest'
+import { expect, it } from 'vitest'
 import { syntheticScan } from '../../shared/scan/synthetic'
-import { startApp, type RunningApp } from '../helpers/app'
-import { launch, ready, register } from '../helpers/browser'
+import type { RunningApp } from '../helpers/app'
+import { ready, register, withAppAndBrowser } from '../helpers/browser'
 import { Client } from '../helpers/client'
 
 let app: RunningApp
@@ -14,12 +14,9 @@ let browser: Browser
 let buildUrl: string
 const scan = syntheticScan({ width: 160, height: 160, pixel_nm: 0.1, density_per_nm2: 0.1, margin_nm: 1.5, fwhm_nm: 0.8, height_nm: 0.08, noise_nm: 0.002, seed: 21 })
 
-beforeAll(async () => {
-  [app, browser] = await Promise.all([startApp(), launch()])
-})
-afterAll(async () => {
-  await browser?.close()
-  await app?.stop()
+withAppAndBrowser((a, b) => {
+  app = a
+  browser = b
 })
 
 async function marksFromApi(page: Page): Promise<{ x_nm: number, y_nm: number }[]> {

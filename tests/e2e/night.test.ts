@@ -2,21 +2,18 @@
 // the keyboard (placed, stayed, off-site with a click on the structure), re-plan with R, close
 // the run, and find the night summary in the fake SMTP server's outbox.
 import type { Browser } from 'playwright-core'
-import { afterAll, beforeAll, expect, it } from 'vitest'
-import { startApp, type RunningApp } from '../helpers/app'
-import { launch, register } from '../helpers/browser'
+import { expect, it } from 'vitest'
+import type { RunningApp } from '../helpers/app'
+import { register, withAppAndBrowser } from '../helpers/browser'
 import { Client, waitForMail } from '../helpers/client'
 import { makeBlueprint, makeLab, makeRoute, makeScan, sitePos } from '../helpers/plan'
 
 let app: RunningApp
 let browser: Browser
 
-beforeAll(async () => {
-  [app, browser] = await Promise.all([startApp(), launch()])
-})
-afterAll(async () => {
-  await browser?.close()
-  await app?.stop()
+withAppAndBrowser((a, b) => {
+  app = a
+  browser = b
 })
 
 it('start → three outcomes by keyboard → re-plan → close → the summary mail arrives', async () => {

@@ -3,9 +3,9 @@
 // move table, step through the moves, and download the move list as CSV in the instrument frame.
 import { readFileSync } from 'node:fs'
 import type { Browser } from 'playwright-core'
-import { afterAll, beforeAll, expect, it } from 'vitest'
-import { startApp, type RunningApp } from '../helpers/app'
-import { launch, register } from '../helpers/browser'
+import { expect, it } from 'vitest'
+import type { RunningApp } from '../helpers/app'
+import { register, withAppAndBrowser } from '../helpers/browser'
 import { Client } from '../helpers/client'
 
 type P = [number, number]
@@ -20,12 +20,9 @@ const origin: P = [8, 8]
 const at = (i: number, j: number): P => [origin[0] + i * a1[0] + j * a2[0], origin[1] + i * a1[1] + j * a2[1]]
 const frame = { size_x_nm: 16, size_y_nm: 16, offset_x_nm: 120, offset_y_nm: -35, rotation_deg: 30 }
 
-beforeAll(async () => {
-  [app, browser] = await Promise.all([startApp(), launch()])
-})
-afterAll(async () => {
-  await browser?.close()
-  await app?.stop()
+withAppAndBrowser((a, b) => {
+  app = a
+  browser = b
 })
 
 it('solve a route, step through it, download the CSV with its caution', async () => {

@@ -6,23 +6,20 @@
 import { writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import type { Browser, Page } from 'playwright-core'
-import { afterAll, beforeAll, expect, it } from 'vitest'
+import { expect, it } from 'vitest'
 import { toScanFrame } from '../../shared/blueprint/frame'
 import { corralLevels, lorentzian } from '../../shared/waves/corral'
 import { fitCircle } from '../../shared/waves/geometry'
-import { startApp, type RunningApp } from '../helpers/app'
-import { launch, register } from '../helpers/browser'
+import type { RunningApp } from '../helpers/app'
+import { register, withAppAndBrowser } from '../helpers/browser'
 import { Client } from '../helpers/client'
 
 let app: RunningApp
 let browser: Browser
 
-beforeAll(async () => {
-  [app, browser] = await Promise.all([startApp(), launch()])
-})
-afterAll(async () => {
-  await browser?.close()
-  await app?.stop()
+withAppAndBrowser((a, b) => {
+  app = a
+  browser = b
 })
 
 // Cu(111): a = 3.61 Å (Ashcroft & Mermin, Table 4.3), nearest-neighbour distance a/√2 (derived).

@@ -2,6 +2,8 @@
 // quiet on a machine without outside network.
 import { existsSync } from 'node:fs'
 import { chromium, type Browser, type Page } from 'playwright-core'
+import { afterAll, beforeAll } from 'vitest'
+import { startApp, type RunningApp } from './app'
 
 export const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium'
 
@@ -34,4 +36,21 @@ export async function signIn(page: Page, base: string, email: string, password: 
   await page.fill('#password', password)
   await page.click('button[type=submit]')
   await page.waitForURL(u => !u.pathname.startsWith('/login'))
+}
+
+/**
+ * Starts the built app and the system Chromium once for a test file and stops both after it;
+ * `bind` receives them for the file's own variables.
+ */
+export function withAppAndBrowser(bind: (app: RunningApp, browser: Browser) => void) {
+  let app: RunningApp | undefined
+  let browser: Browser | undefined
+  beforeAll(async () => {
+    [app, browser] = await Promise.all([startApp(), launch()])
+    bind(app, browser)
+  })
+  afterAll(async () => {
+    await browser?.close()
+    await app?.stop()
+  })
 }
